@@ -90,6 +90,30 @@ public static class StepSimulator
         return new StepResponse([.. time], [.. y], metrics, h.HasDelay ? DelayTreatment.ExactShift : DelayTreatment.None, null);
     }
 
+    /// <summary>
+    /// The response to a step that ramps linearly from 0 to the amplitude over riseTimeS: (A / tr) (r(t) - r(t - tr)),
+    /// r the ramp response, the step response of h / s (superposition of two ramps, exact at the samples).
+    /// </summary>
+    public static StepResponse SimulateSlewed(TransferFunction h, double riseTimeS, double durationS, int samples = DefaultSamples, double amplitude = 1.0)
+    {
+        if (!(riseTimeS > 0))
+        {
+            return Simulate(h, durationS, samples, amplitude);
+        }
+
+        var ramp = h.Multiply(TransferFunction.FromRoots(1.0, -1, [], []));
+        var r1 = Simulate(ramp, durationS, samples, amplitude / riseTimeS);
+        var r2 = Simulate(ramp.WithDelay(riseTimeS), durationS, samples, amplitude / riseTimeS);
+        var y = new double[samples];
+        for (int k = 0; k < y.Length; k++)
+        {
+            y[k] = r1.Value[k] - r2.Value[k];
+        }
+
+        double? final = h.DcGain * amplitude;
+        return new StepResponse(r1.TimeS, [.. y], Metrics(r1.TimeS, y, final), h.HasDelay ? DelayTreatment.ExactShift : DelayTreatment.None, null);
+    }
+
     /// <summary>Ten times the slowest non-zero pole's time constant, never less than ten times the fastest's; 1 s without poles.</summary>
     public static double AutoDuration(TransferFunction h)
     {

@@ -280,6 +280,30 @@ public sealed class TransferFunction
     public TransferFunction WithPadeDelay(int order)
         => HasDelay ? new TransferFunction(Gain, OriginOrder, Zeros, Poles, 0.0).Multiply(PadeApproximation.Of(DelayS, order)) : this;
 
+    /// <summary>
+    /// This function with pole-zero pairs that coincide to a relative tolerance cancelled (the hidden modes they
+    /// stand for are stable ones left by closing a loop around a plant; unstable pairs are kept).
+    /// </summary>
+    public TransferFunction Minimal(double relativeTolerance = 1e-7)
+    {
+        var zeros = Zeros.ToList();
+        var poles = Poles.ToList();
+        bool changed = false;
+        for (int i = zeros.Count - 1; i >= 0; i--)
+        {
+            var z = zeros[i];
+            int j = poles.FindIndex(p => Complex.Abs(p - z) <= relativeTolerance * Complex.Abs(p) && p.Real < 0);
+            if (j >= 0)
+            {
+                zeros.RemoveAt(i);
+                poles.RemoveAt(j);
+                changed = true;
+            }
+        }
+
+        return changed ? new TransferFunction(Gain, OriginOrder, [.. zeros], [.. poles], DelayS) : this;
+    }
+
     /// <summary>This function without its pure delay.</summary>
     public TransferFunction WithoutDelay() => new(Gain, OriginOrder, Zeros, Poles, 0.0);
 

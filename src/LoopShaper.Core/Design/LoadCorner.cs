@@ -1,0 +1,11 @@
+namespace LoopShaper.Core.Design;
+
+/// <summary>Which load current an analysis uses.</summary>
+public enum LoadCorner
+{
+    /// <summary>Lightest load.</summary>
+    Min,
+
+    /// <summary>Full load.</summary>
+    Max,
+}

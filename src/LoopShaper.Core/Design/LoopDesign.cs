@@ -1,0 +1,13 @@
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.PlantModels;
+
+namespace LoopShaper.Core.Design;
+
+/// <summary>A whole design: the plant, the compensator, what to analyse and what the loop must achieve.</summary>
+/// <param name="Name">Short name of the design.</param>
+/// <param name="Description">What the rail is for.</param>
+/// <param name="Plant">Power stage or custom plant.</param>
+/// <param name="Compensator">Compensator by placement or by parts.</param>
+/// <param name="Analysis">Analysis settings.</param>
+/// <param name="Criteria">Design criteria.</param>
+public sealed record LoopDesign(string Name, string Description, Plant Plant, Compensator Compensator, AnalysisSettings Analysis, DesignCriteria Criteria);
