@@ -1,7 +1,7 @@
-using Complex = System.Numerics.Complex;
 using LoopShaper.Core.Numerics;
 using LoopShaper.Core.TransferFunctions;
 using MathNet.Numerics.LinearAlgebra;
+using Complex = System.Numerics.Complex;
 
 namespace LoopShaper.Core.Analysis;
 

@@ -10,8 +10,17 @@ public static class SiValue
 {
     private static readonly Dictionary<string, double> Multipliers = new(StringComparer.Ordinal)
     {
-        ["f"] = 1e-15, ["p"] = 1e-12, ["n"] = 1e-9, ["u"] = 1e-6, ["µ"] = 1e-6, ["μ"] = 1e-6, ["m"] = 1e-3,
-        ["k"] = 1e3, ["M"] = 1e6, ["G"] = 1e9, ["T"] = 1e12,
+        ["f"] = 1e-15,
+        ["p"] = 1e-12,
+        ["n"] = 1e-9,
+        ["u"] = 1e-6,
+        ["µ"] = 1e-6,
+        ["μ"] = 1e-6,
+        ["m"] = 1e-3,
+        ["k"] = 1e3,
+        ["M"] = 1e6,
+        ["G"] = 1e9,
+        ["T"] = 1e12,
     };
 
     /// <summary>
