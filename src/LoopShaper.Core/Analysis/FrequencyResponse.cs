@@ -20,9 +20,10 @@ public sealed record FrequencyResponse(ImmutableArray<double> FrequencyHz, Immut
         for (int i = 0; i < mag.Length; i++)
         {
             double w = 2 * Math.PI * frequencyHz[i];
-            double db = 20.0 / Math.Log(10.0) * h.LogMagnitude(w);
+            h.LogMagnitudeAndPhase(w, out double lm, out double p);
+            double db = 20.0 / Math.Log(10.0) * lm;
             mag[i] = double.IsNaN(db) ? -MagnitudeLimitDb : Math.Clamp(db, -MagnitudeLimitDb, MagnitudeLimitDb);
-            ph[i] = h.PhaseRad(w) * 180.0 / Math.PI;
+            ph[i] = p * 180.0 / Math.PI;
         }
 
         return new FrequencyResponse([.. frequencyHz], [.. mag], [.. ph]);

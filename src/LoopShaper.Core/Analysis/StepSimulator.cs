@@ -62,10 +62,29 @@ public static class StepSimulator
                 }
 
                 var (phi, gam) = Discretize(a, b, w * dt);
+                double[] pa = phi.ToRowMajorArray(), ga = gam.ToArray(), ca = c.ToArray(), xa = x.ToArray(), xn = new double[n];
                 for (int k = firstActive; k < samples; k++)
                 {
-                    y[k] = amplitude * (c.DotProduct(x) + d);
-                    x = (phi * x) + gam;
+                    double acc = d;
+                    for (int i = 0; i < n; i++)
+                    {
+                        acc += ca[i] * xa[i];
+                    }
+
+                    y[k] = amplitude * acc;
+                    for (int i = 0; i < n; i++)
+                    {
+                        double v = ga[i];
+                        int row = i * n;
+                        for (int j = 0; j < n; j++)
+                        {
+                            v += pa[row + j] * xa[j];
+                        }
+
+                        xn[i] = v;
+                    }
+
+                    (xa, xn) = (xn, xa);
                 }
             }
             else

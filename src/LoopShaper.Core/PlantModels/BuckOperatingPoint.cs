@@ -70,11 +70,14 @@ public static class BuckOperatingPoint
                 y += s * b.TotalCapacitanceF / (1 + (s * b.TotalEsrOhm * b.TotalCapacitanceF) + (s * s * b.TotalEslH * b.TotalCapacitanceF));
             }
 
-            var vk = ck / y;
+            var vk = 2.0 * ck / y;
+            var step = new Complex(Math.Cos(2 * Math.PI * k / samples), Math.Sin(2 * Math.PI * k / samples));
+            var rot = Complex.One;
             for (int n = 0; n < samples; n++)
             {
-                double ph = 2 * Math.PI * k * n / samples;
-                v[n] += 2 * ((vk.Real * Math.Cos(ph)) - (vk.Imaginary * Math.Sin(ph)));
+                // Re(vk e^{j 2 pi k n / N}) by a rotating phasor.
+                v[n] += (vk * rot).Real;
+                rot *= step;
             }
         }
 

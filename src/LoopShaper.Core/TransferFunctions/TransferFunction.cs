@@ -28,7 +28,10 @@ public sealed class TransferFunction
         Zeros = zeros;
         Poles = poles;
         DelayS = delayS;
+        _plan = EvaluationPlan.Build(gain, originOrder, zeros, poles, delayS);
     }
+
+    private readonly EvaluationPlan _plan;
 
     /// <summary>K: the coefficient of the low-frequency asymptote K s^n.</summary>
     public double Gain { get; }
@@ -152,21 +155,10 @@ public sealed class TransferFunction
     }
 
     /// <summary>Natural logarithm of |H(j omega)|, summed factor by factor.</summary>
-    public double LogMagnitude(double omega)
-    {
-        double acc = Math.Log(Math.Abs(Gain)) + (OriginOrder * Math.Log(omega));
-        foreach (var z in Zeros)
-        {
-            acc += Math.Log(Complex.Abs(Factor(z, omega)));
-        }
+    public double LogMagnitude(double omega) => _plan.LogMagnitude(omega);
 
-        foreach (var p in Poles)
-        {
-            acc -= Math.Log(Complex.Abs(Factor(p, omega)));
-        }
-
-        return acc;
-    }
+    /// <summary>Natural logarithm of |H(j omega)| and the continuous phase in radians, in one pass over the factors.</summary>
+    public void LogMagnitudeAndPhase(double omega, out double logMagnitude, out double phaseRad) => _plan.Evaluate(omega, out logMagnitude, out phaseRad);
 
     /// <summary>|H(j 2 pi f)| in dB (20 log10).</summary>
     public double MagnitudeDb(double frequencyHz) => 20.0 / Math.Log(10.0) * LogMagnitude(2.0 * Math.PI * frequencyHz);
@@ -176,21 +168,7 @@ public sealed class TransferFunction
     /// (and -pi for a negative K); a delay adds -omega Td. A root on the imaginary axis makes the phase jump by pi
     /// (+pi for zeros, -pi for poles), the limit from the left half plane.
     /// </summary>
-    public double PhaseRad(double omega)
-    {
-        double acc = (Gain < 0 ? -Math.PI : 0.0) + (OriginOrder * Math.PI / 2.0) - (omega * DelayS);
-        foreach (var z in Zeros)
-        {
-            acc += FactorAngle(z, omega);
-        }
-
-        foreach (var p in Poles)
-        {
-            acc -= FactorAngle(p, omega);
-        }
-
-        return acc;
-    }
+    public double PhaseRad(double omega) => _plan.Phase(omega);
 
     /// <summary>Continuous phase of H(j 2 pi f) in degrees.</summary>
     public double PhaseDeg(double frequencyHz) => PhaseRad(2.0 * Math.PI * frequencyHz) * 180.0 / Math.PI;
@@ -330,16 +308,6 @@ public sealed class TransferFunction
             ? (r.Real / (2 * Math.PI)).ToString("G4", CultureInfo.InvariantCulture)
             : string.Create(CultureInfo.InvariantCulture, $"{r.Real / (2 * Math.PI):G4}{(r.Imaginary >= 0 ? "+" : "-")}j{Math.Abs(r.Imaginary) / (2 * Math.PI):G4}")));
         return string.Create(inv, $"K={Gain:G6}, s^{OriginOrder}, zeros[Hz]=({Roots(Zeros)}), poles[Hz]=({Roots(Poles)}), Td={DelayS:G4}s");
-    }
-
-    internal static Complex Factor(Complex root, double omega) => 1.0 - (new Complex(0, omega) / root);
-
-    /// <summary>arg(1 - j omega / r), continuous in omega; for a root on the imaginary axis the jump is +pi.</summary>
-    internal static double FactorAngle(Complex root, double omega)
-    {
-        var f = Factor(root, omega);
-        double im = root.Real == 0.0 ? 0.0 : f.Imaginary;
-        return Math.Atan2(im, f.Real);
     }
 
     /// <summary>Geometric mean of the magnitudes of the non-zero roots; 1 when there are none.</summary>
