@@ -16,6 +16,7 @@ public static class MarginAnalyzer
 {
     private const double RootToleranceLnOmega = 1e-12;
     private const double TouchToleranceLn = 1e-9;
+    private const double EdgeToleranceRad = 1e-12;
     private const double MaxPhaseStepRad = 5.0 * Math.PI / 180.0;
     private const int BasePointsPerDecade = 24;
     private const int MaxSamples = 400_000;
@@ -114,13 +115,8 @@ public static class MarginAnalyzer
         };
     }
 
-    /// <summary>180 + phase wrapped into (-180, 180] degrees.</summary>
-    public static double PhaseMarginFromPhase(double phaseDeg)
-    {
-        double pm = 180.0 + phaseDeg;
-        pm -= 360.0 * Math.Ceiling((pm - 180.0) / 360.0);
-        return pm;
-    }
+    /// <summary>Phase margin 180 + phase, the phase continuous from the low-frequency end (shared/CONVENTIONS.md; no folding into 0..360).</summary>
+    public static double PhaseMarginFromPhase(double phaseDeg) => 180.0 + phaseDeg;
 
     private static double Db(TransferFunction t, double lnW) => 20.0 / Math.Log(10.0) * t.LogMagnitude(Math.Exp(lnW));
 
@@ -338,6 +334,16 @@ public static class MarginAnalyzer
                         }
                     }
                 }
+            }
+        }
+
+        // A crossing that sits on the first or last frequency to round-off (MARGIN-CASES 3).
+        foreach (int e in new[] { 0, u.Count - 1 })
+        {
+            int k = (int)Math.Round(((p[e] / Math.PI) + 1) / 2);
+            if (Math.Abs(p[e] - Level(k)) <= EdgeToleranceRad)
+            {
+                found.Add((u[e], k));
             }
         }
 

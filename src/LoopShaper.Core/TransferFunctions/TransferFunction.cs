@@ -347,10 +347,16 @@ public sealed class TransferFunction
             return Constant(0.0);
         }
 
-        int a = num.LowestOrder, b = den.LowestOrder;
+        // Roots within round-off of the origin count as exactly there, and the gain comes from the coefficient of the
+        // matching power, so that a pole at 1e-17 does not turn into a gain 1e17 times too large (MARGIN-CASES 6).
+        var zr = num.Roots();
+        var pr = den.Roots();
+        double scale = FrequencyScale(zr.Concat(pr));
+        bool AtOrigin(Complex r) => Complex.Abs(r) <= OriginTolerance * scale;
+        int a = zr.Count(AtOrigin), b = pr.Count(AtOrigin);
         double gain = k * num.Coefficients[a] / den.Coefficients[b] * Math.Pow(w, b - a);
-        var zeros = num.Roots().Where(r => r != Complex.Zero).Select(r => r * w);
-        var poles = den.Roots().Where(r => r != Complex.Zero).Select(r => r * w);
+        var zeros = zr.Where(r => !AtOrigin(r)).Select(r => r * w);
+        var poles = pr.Where(r => !AtOrigin(r)).Select(r => r * w);
         return FromRoots(gain, a - b, zeros, poles, delayS);
     }
 
