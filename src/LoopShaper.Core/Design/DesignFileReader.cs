@@ -38,7 +38,7 @@ internal static class DesignFileReader
         using (doc)
         {
             var root = JsonFieldReader.Open(doc.RootElement, "$", errors);
-            if (errors.Count > 0 || !ReadHeader(root, errors))
+            if (!root.IsObject || !ReadHeader(root, errors))
             {
                 return new DesignFileResult(null, [.. errors]);
             }
