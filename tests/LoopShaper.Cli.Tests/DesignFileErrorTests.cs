@@ -164,6 +164,17 @@ public class DesignFileErrorTests
     }
 
     [Fact]
+    public void The_gain_value_takes_the_unit_of_its_kind()
+    {
+        var e = Errors(j => j["compensator"]!["gain"] = new JsonObject { ["kind"] = "midbandGainDb", ["value"] = "40 kHz" });
+        Assert.StartsWith("expects a number in decibels (dB)", Single(e, "$.compensator.gain.value").Message, StringComparison.Ordinal);
+
+        // An unknown kind is one error; the value is not judged against a guessed unit.
+        e = Errors(j => j["compensator"]!["gain"] = new JsonObject { ["kind"] = "crossover", ["value"] = "40 kHz" });
+        Assert.Equal("$.compensator.gain.kind", Assert.Single(e).Field);
+    }
+
+    [Fact]
     public void An_unknown_plant_model_does_not_flood_the_report_with_unknown_fields()
     {
         var e = Errors(j => j["plant"]!["model"] = "boost");
