@@ -87,6 +87,30 @@ public class NgspiceExportTests
         Assert.Contains("Vx x 0 DC 0 AC 1", SpiceNetlist.AveragedLoop(TestPlants.Buck(placement), Network(CompensatorType.TypeII)), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void Netlists_are_plain_SPICE3_with_a_header_and_the_parts_list_names()
+    {
+        var n = Network(CompensatorType.TypeIII);
+        foreach (string netlist in new[] { SpiceNetlist.Compensator(n, "rail\nwith a line break"), SpiceNetlist.AveragedLoop(TestPlants.Buck(n)) })
+        {
+            var lines = netlist.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+            Assert.StartsWith("* LoopShaper", lines[0], StringComparison.Ordinal);
+            Assert.Equal(".end", lines[^1]);
+            // No ngspice-only control block, no inline comments: every line is a comment, an element or a dot card.
+            Assert.DoesNotContain(".control", netlist, StringComparison.Ordinal);
+            Assert.All(lines, l => Assert.True(l.StartsWith('*') || l.StartsWith('.') || !l.Contains(';', StringComparison.Ordinal), l));
+            foreach (string d in new[] { "R1 ", "R2 ", "R3 ", "R4 ", "C1 ", "C2 ", "C3 " })
+            {
+                Assert.Contains(lines, l => l.StartsWith(d, StringComparison.Ordinal));
+            }
+        }
+
+        Assert.Contains("* design: rail with a line break", SpiceNetlist.Compensator(n, "rail\nwith a line break"), StringComparison.Ordinal);
+        Assert.Throws<ArgumentOutOfRangeException>(() => SpiceNetlist.Compensator(n, "x", new SpiceSweep(0)));
+        Assert.Throws<ArgumentOutOfRangeException>(() => SpiceNetlist.Compensator(n, "x", new SpiceSweep(10, 1e3, 10)));
+        Assert.Throws<ArgumentOutOfRangeException>(() => SpiceNetlist.Compensator(n, "x", null, double.NaN));
+    }
+
     private static void Compare(Core.TransferFunctions.TransferFunction h, List<(double FrequencyHz, Complex Value)> points, string name)
     {
         // The reference phase is the principal value at 10 Hz, then unwrapped point by point; ours is continuous by

@@ -27,7 +27,7 @@ public static class SpiceNetlist
     /// </summary>
     public static string Compensator(OpAmpNetwork network, string designName, SpiceSweep? sweep = null, double amplifierGain = DefaultAmplifierGain)
     {
-        var s = sweep ?? new SpiceSweep();
+        var s = Check(sweep, amplifierGain);
         var w = new Writer();
         w.Comment($"LoopShaper compensator netlist: {Describe(network.Type)} op-amp network around an ideal amplifier (E source, gain {amplifierGain.ToString("G3", CultureInfo.InvariantCulture)} V/V)");
         w.Comment($"design: {Clean(designName)}");
@@ -64,7 +64,7 @@ public static class SpiceNetlist
 
         var n = network ?? design.Compensator as OpAmpNetwork
             ?? throw new ArgumentException("The design's compensator is a placement, not parts: synthesise the parts first and pass the network.", nameof(network));
-        var s = sweep ?? new SpiceSweep();
+        var s = Check(sweep, amplifierGain);
         var stage = buck.PowerStage;
         var at = DesignAnalyzer.ConditionOf(stage, design.Analysis);
         var op = BuckOperatingPoint.Solve(stage, at);
@@ -147,6 +147,27 @@ public static class SpiceNetlist
         w.Line("Et t 0 comp 0 -1");
         Footer(w, s, "vdb(t) vp(t)");
         return w.ToString();
+    }
+
+    private static SpiceSweep Check(SpiceSweep? sweep, double amplifierGain)
+    {
+        var s = sweep ?? new SpiceSweep();
+        if (s.PointsPerDecade is < 1 or > 1000)
+        {
+            throw new ArgumentOutOfRangeException(nameof(sweep), s.PointsPerDecade, "The sweep needs 1 to 1000 points per decade.");
+        }
+
+        if (!(s.StartHz > 0) || !(s.StopHz > s.StartHz) || !double.IsFinite(s.StopHz))
+        {
+            throw new ArgumentOutOfRangeException(nameof(sweep), "The sweep needs 0 < start < stop, both finite.");
+        }
+
+        if (!(amplifierGain >= 1e3) || !double.IsFinite(amplifierGain))
+        {
+            throw new ArgumentOutOfRangeException(nameof(amplifierGain), amplifierGain, "The amplifier gain must be finite and at least 1e3 V/V.");
+        }
+
+        return s;
     }
 
     private static void NetworkLines(Writer w, OpAmpNetwork n, string input, double gain)

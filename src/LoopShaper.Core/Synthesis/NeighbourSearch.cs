@@ -27,11 +27,6 @@ internal static class NeighbourSearch
         for (int code = 0; code < total; code++)
         {
             var n = Build(snapped, parts, free, code, o.SearchSteps, out _);
-            if (n is null)
-            {
-                continue;
-            }
-
             scored.Add((Fast(plant, n.TransferFunction(), fcTarget, pmTarget, o), code));
         }
 
@@ -39,7 +34,7 @@ internal static class NeighbourSearch
         NeighbourSearchResult? best = null;
         foreach (var (score, code) in scored.Where(s => double.IsFinite(s.Score)).OrderBy(s => s.Score).Take(FullAnalyses))
         {
-            var n = Build(snapped, parts, free, code, o.SearchSteps, out var chosen)!;
+            var n = Build(snapped, parts, free, code, o.SearchSteps, out var chosen);
             var perf = LoopPerformance.From(MarginAnalyzer.Analyze(n.TransferFunction().Multiply(plant), start, stop));
             double d = Distance(perf, fcTarget, pmTarget, o);
             if (double.IsFinite(d) && (best is null || d < best.Distance))
@@ -92,8 +87,11 @@ internal static class NeighbourSearch
         return Distance(w / (2 * Math.PI), pm, fcTarget, pmTarget, o);
     }
 
-    /// <summary>The network of one combination: digit k of the code in base (2 steps + 1) is the offset of free part k.</summary>
-    private static OpAmpNetwork? Build(OpAmpNetwork snapped, ImmutableArray<SynthesizedPart> parts, int[] free, int code, int steps, out ImmutableArray<SynthesizedPart> chosen)
+    /// <summary>
+    /// The network of one combination: digit k of the code in base (2 steps + 1) is the offset of free part k. Every
+    /// combination is a valid network: with positive parts fp1 / fz1 = (C1 + C2) / C2 &gt; 1 and fp2 / fz2 = (R1 + R3) / R3 &gt; 1.
+    /// </summary>
+    private static OpAmpNetwork Build(OpAmpNetwork snapped, ImmutableArray<SynthesizedPart> parts, int[] free, int code, int steps, out ImmutableArray<SynthesizedPart> chosen)
     {
         var list = parts.ToBuilder();
         int c = code, width = (2 * steps) + 1;
@@ -105,8 +103,6 @@ internal static class NeighbourSearch
         }
 
         chosen = list.ToImmutable();
-        var n = OpAmpNetworkParts.With(snapped, chosen);
-        // Type II and III need each pole above its zero: C1 > 0, C2 > 0 hold for any preferred values, so every combination is a valid network.
-        return n.Type == CompensatorType.TypeI || (n.C2F > 0 && n.R2Ohm > 0) ? n : null;
+        return OpAmpNetworkParts.With(snapped, chosen);
     }
 }
