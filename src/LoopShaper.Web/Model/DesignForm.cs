@@ -92,8 +92,8 @@ public sealed class DesignForm
         MinCrossover = new($"{Crit}.minCrossoverHz", "Crossover, at least (0: none)", "Hz", k.MinCrossoverHz);
         MaxOvershoot = new($"{Crit}.maxOvershootPct", "Reference-step overshoot, at most", "%", k.MaxOvershootPct, optional: true);
         MaxLoadStepDeviation = new($"{Crit}.maxLoadStepDeviationV", "Load-step deviation, at most", "V", k.MaxLoadStepDeviationV, optional: true);
-        MinRippleFraction = new($"{Crit}.minRippleFraction", "Ripple current, at least", string.Empty, k.MinRippleFraction, "× full load");
-        MaxRippleFraction = new($"{Crit}.maxRippleFraction", "Ripple current, at most", string.Empty, k.MaxRippleFraction, "× full load");
+        MinRippleFraction = new($"{Crit}.minRippleFraction", "Ripple current, at least", string.Empty, k.MinRippleFraction, "× Imax");
+        MaxRippleFraction = new($"{Crit}.maxRippleFraction", "Ripple current, at most", string.Empty, k.MaxRippleFraction, "× Imax");
     }
 
     /// <summary>Short name of the design.</summary>

@@ -96,7 +96,8 @@ public static class BodeFigure
             data.Add(Points("|T| at phase crossover", [p.FrequencyHz], [p.MagnitudeDb], "y", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
             data.Add(Points("phase crossover", [p.FrequencyHz], [p.CriticalPhaseDeg], "y2", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
             string kind = p.GainMarginDb >= 0 ? "GM" : "lower GM";
-            annotations.Add(Note(p.FrequencyHz, p.MagnitudeDb, "y", $"{kind} <b>{Num(p.GainMarginDb, "F1")} dB</b><br>at {FormatHz(p.FrequencyHz)}", ChartPalette.GainMargin, 40, -40));
+            int k = annotations.Count(n => n.YRef == "y");
+            annotations.Add(Note(p.FrequencyHz, p.MagnitudeDb, "y", $"{kind} <b>{Num(p.GainMarginDb, "F1")} dB</b><br>at {FormatHz(p.FrequencyHz)}", ChartPalette.GainMargin, k % 2 == 0 ? -70 : 40, 48));
         }
 
         // The -180 + k 360 degree levels inside the phase panel, and 0 dB.
@@ -334,8 +335,8 @@ public static class BodeFigure
             Font = new Font { Family = ChartPalette.FontFamily, Size = ChartPalette.FontSize, Color = ChartPalette.Ink },
             PaperBgColor = "#ffffff",
             PlotBgColor = "#ffffff",
-            Margin = new Margin { L = 78, R = 24, T = 40, B = 62 },
-            ShowLegend = true,
+            Margin = new Margin { L = 78, R = 24, T = 14, B = 58 },
+            ShowLegend = false,
             Legend = [new Legend { Orientation = Plotly.Blazor.LayoutLib.LegendLib.OrientationEnum.H, X = 0m, Y = 1.09m, ItemClick = Plotly.Blazor.LayoutLib.LegendLib.ItemClickEnum.False, ItemDoubleClick = Plotly.Blazor.LayoutLib.LegendLib.ItemDoubleClickEnum.False, Font = new Plotly.Blazor.LayoutLib.LegendLib.Font { Size = 13 } }],
             HoverMode = HoverModeEnum.Closest,
             UiRevision = "bode",
