@@ -71,6 +71,12 @@ public static class ShareToken
                 }
             }
 
+            if (output.Length == 0)
+            {
+                error = "the link's design part is damaged (it unpacks to nothing); copy the whole link again.";
+                return false;
+            }
+
             json = Encoding.UTF8.GetString(output.ToArray());
             return true;
         }

@@ -40,11 +40,13 @@ public partial class DesignFilePanel
         if (read.Design is null)
         {
             _openErrors = [.. read.Errors];
+            StateHasChanged();
             return;
         }
 
         _openErrors = [];
         _saveOpen = false;
+        StateHasChanged();
         await Workspace.LoadAsync(read.Design);
     }
 
