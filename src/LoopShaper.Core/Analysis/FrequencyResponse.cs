@@ -20,9 +20,10 @@ public sealed record FrequencyResponse(ImmutableArray<double> FrequencyHz, Immut
         for (int i = 0; i < mag.Length; i++)
         {
             double w = 2 * Math.PI * frequencyHz[i];
-            double db = 20.0 / Math.Log(10.0) * h.LogMagnitude(w);
+            h.LogMagnitudeAndPhase(w, out double lm, out double p);
+            double db = 20.0 / Math.Log(10.0) * lm;
             mag[i] = double.IsNaN(db) ? -MagnitudeLimitDb : Math.Clamp(db, -MagnitudeLimitDb, MagnitudeLimitDb);
-            ph[i] = h.PhaseRad(w) * 180.0 / Math.PI;
+            ph[i] = p * 180.0 / Math.PI;
         }
 
         return new FrequencyResponse([.. frequencyHz], [.. mag], [.. ph]);
@@ -30,6 +31,28 @@ public sealed record FrequencyResponse(ImmutableArray<double> FrequencyHz, Immut
 
     /// <summary>The response of a function on a grid, with extra points near its poles and zeros.</summary>
     public static FrequencyResponse Of(TransferFunction h, FrequencyGrid grid) => Of(h, grid.Adaptive([h]));
+
+    /// <summary>
+    /// The response of the product of two functions on the same frequencies: magnitudes in dB and continuous phases add
+    /// (the phase of a product is the sum of the factor angles, so continuity is kept).
+    /// </summary>
+    public FrequencyResponse Times(FrequencyResponse other)
+    {
+        if (other.Count != Count)
+        {
+            throw new ArgumentException("Both responses must share their frequencies.", nameof(other));
+        }
+
+        var mag = new double[Count];
+        var ph = new double[Count];
+        for (int i = 0; i < Count; i++)
+        {
+            mag[i] = Math.Clamp(MagnitudeDb[i] + other.MagnitudeDb[i], -MagnitudeLimitDb, MagnitudeLimitDb);
+            ph[i] = PhaseDeg[i] + other.PhaseDeg[i];
+        }
+
+        return new FrequencyResponse(FrequencyHz, [.. mag], [.. ph]);
+    }
 
     /// <summary>Number of points.</summary>
     public int Count => FrequencyHz.Length;

@@ -16,6 +16,7 @@ public static class MarginAnalyzer
 {
     private const double RootToleranceLnOmega = 1e-12;
     private const double TouchToleranceLn = 1e-9;
+    private const double EdgeToleranceRad = 1e-12;
     private const double MaxPhaseStepRad = 5.0 * Math.PI / 180.0;
     private const int BasePointsPerDecade = 24;
     private const int MaxSamples = 400_000;
@@ -37,9 +38,9 @@ public static class MarginAnalyzer
         var phase = new List<PhaseCrossover>();
         foreach (var (a, b) in segments)
         {
-            var u = RefinedGrid(loop, a, b);
-            FindGainCrossings(loop, u, gain, touches);
-            FindPhaseCrossings(loop, u, phase);
+            var (u, ph, lm) = RefinedGrid(loop, a, b);
+            FindGainCrossings(loop, u, lm, gain, touches);
+            FindPhaseCrossings(loop, u, ph, phase);
         }
 
         gain.Sort((x, y) => x.FrequencyHz.CompareTo(y.FrequencyHz));
@@ -114,13 +115,8 @@ public static class MarginAnalyzer
         };
     }
 
-    /// <summary>180 + phase wrapped into (-180, 180] degrees.</summary>
-    public static double PhaseMarginFromPhase(double phaseDeg)
-    {
-        double pm = 180.0 + phaseDeg;
-        pm -= 360.0 * Math.Ceiling((pm - 180.0) / 360.0);
-        return pm;
-    }
+    /// <summary>Phase margin 180 + phase, the phase continuous from the low-frequency end (shared/CONVENTIONS.md; no folding into 0..360).</summary>
+    public static double PhaseMarginFromPhase(double phaseDeg) => 180.0 + phaseDeg;
 
     private static double Db(TransferFunction t, double lnW) => 20.0 / Math.Log(10.0) * t.LogMagnitude(Math.Exp(lnW));
 
@@ -144,7 +140,7 @@ public static class MarginAnalyzer
     /// Points in ln(omega): an even grid, the root magnitudes, then bisection wherever the phase moves more than
     /// 5 degrees or the log-magnitude more than 0.5 between neighbours.
     /// </summary>
-    private static List<double> RefinedGrid(TransferFunction loop, double a, double b)
+    private static (List<double> U, List<double> Phase, List<double> LogMagnitude) RefinedGrid(TransferFunction loop, double a, double b)
     {
         int n = Math.Max((int)Math.Ceiling((b - a) / Math.Log(10) * BasePointsPerDecade), 4);
         var u = new List<double>(n + 16);
@@ -163,9 +159,18 @@ public static class MarginAnalyzer
         }
 
         u.Sort();
-        var ph = u.Select(x => loop.PhaseRad(Math.Exp(x))).ToList();
-        var lm = u.Select(x => loop.LogMagnitude(Math.Exp(x))).ToList();
+        var ph = new List<double>(u.Count);
+        var lm = new List<double>(u.Count);
+        foreach (double x in u)
+        {
+            loop.LogMagnitudeAndPhase(Math.Exp(x), out double m0, out double p0);
+            ph.Add(p0);
+            lm.Add(m0);
+        }
+
         var outU = new List<double>(u.Count * 2) { u[0] };
+        var outP = new List<double>(u.Count * 2) { ph[0] };
+        var outM = new List<double>(u.Count * 2) { lm[0] };
         var stack = new Stack<(double U0, double P0, double M0, double U1, double P1, double M1, int Depth)>();
         for (int i = 0; i + 1 < u.Count; i++)
         {
@@ -177,25 +182,25 @@ public static class MarginAnalyzer
                 if (coarse && depth < 40 && u1 - u0 > 1e-10 && outU.Count < MaxSamples)
                 {
                     double um = 0.5 * (u0 + u1);
-                    double w = Math.Exp(um);
-                    double pm = loop.PhaseRad(w), mm = loop.LogMagnitude(w);
+                    loop.LogMagnitudeAndPhase(Math.Exp(um), out double mm, out double pm);
                     stack.Push((um, pm, mm, u1, p1, m1, depth + 1));
                     stack.Push((u0, p0, m0, um, pm, mm, depth + 1));
                 }
                 else if (u1 > outU[^1])
                 {
                     outU.Add(u1);
+                    outP.Add(p1);
+                    outM.Add(m1);
                 }
             }
         }
 
-        return outU;
+        return (outU, outP, outM);
     }
 
-    private static void FindGainCrossings(TransferFunction loop, List<double> u, List<GainCrossover> gain, List<MagnitudeTouch> touches)
+    private static void FindGainCrossings(TransferFunction loop, List<double> u, List<double> g, List<GainCrossover> gain, List<MagnitudeTouch> touches)
     {
         double G(double x) => loop.LogMagnitude(Math.Exp(x));
-        var g = u.Select(G).ToList();
         var roots = new List<double>();
         for (int i = 0; i < u.Count; i++)
         {
@@ -270,10 +275,9 @@ public static class MarginAnalyzer
         }
     }
 
-    private static void FindPhaseCrossings(TransferFunction loop, List<double> u, List<PhaseCrossover> result)
+    private static void FindPhaseCrossings(TransferFunction loop, List<double> u, List<double> p, List<PhaseCrossover> result)
     {
         double P(double x) => loop.PhaseRad(Math.Exp(x));
-        var p = u.Select(P).ToList();
         var found = new List<(double U, int K)>();
 
         // The critical levels -pi + 2 pi k; level index k of the value pi (2k - 1).
@@ -330,6 +334,16 @@ public static class MarginAnalyzer
                         }
                     }
                 }
+            }
+        }
+
+        // A crossing that sits on the first or last frequency to round-off (MARGIN-CASES 3).
+        foreach (int e in new[] { 0, u.Count - 1 })
+        {
+            int k = (int)Math.Round(((p[e] / Math.PI) + 1) / 2);
+            if (Math.Abs(p[e] - Level(k)) <= EdgeToleranceRad)
+            {
+                found.Add((u[e], k));
             }
         }
 

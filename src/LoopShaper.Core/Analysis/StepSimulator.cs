@@ -52,20 +52,39 @@ public static class StepSimulator
             int n = a.RowCount;
             // Shift so that the first active sample sits exactly at t - delay.
             double t0 = (firstActive * dt) - delay;
-            var x = Vector<double>.Build.Dense(n);
             if (n > 0)
             {
+                var xa = new double[n];
                 if (t0 > 0)
                 {
-                    var (phi0, gam0) = Discretize(a, b, w * t0);
-                    x = (phi0 * x) + gam0;
+                    // From rest, one step of length t0 gives x = Gamma(t0).
+                    (_, xa) = Discretize(a, b, w * t0);
                 }
 
-                var (phi, gam) = Discretize(a, b, w * dt);
+                var (pa, ga) = Discretize(a, b, w * dt);
+                double[] ca = c.ToArray(), xn = new double[n];
                 for (int k = firstActive; k < samples; k++)
                 {
-                    y[k] = amplitude * (c.DotProduct(x) + d);
-                    x = (phi * x) + gam;
+                    double acc = d;
+                    for (int i = 0; i < n; i++)
+                    {
+                        acc += ca[i] * xa[i];
+                    }
+
+                    y[k] = amplitude * acc;
+                    for (int i = 0; i < n; i++)
+                    {
+                        double v = ga[i];
+                        int row = i * n;
+                        for (int j = 0; j < n; j++)
+                        {
+                            v += pa[row + j] * xa[j];
+                        }
+
+                        xn[i] = v;
+                    }
+
+                    (xa, xn) = (xn, xa);
                 }
             }
             else
@@ -209,15 +228,35 @@ public static class StepSimulator
         return t[last] + (Math.Clamp(frac, 0, 1) * (t[last + 1] - t[last]));
     }
 
-    /// <summary>(Phi, Gamma) = exp([[A, B], [0, 0]] h): the exact zero-order-hold discretisation.</summary>
-    private static (Matrix<double> Phi, Vector<double> Gamma) Discretize(Matrix<double> a, Vector<double> b, double h)
+    /// <summary>(Phi, Gamma) = exp([[A, B], [0, 0]] h): the exact zero-order-hold discretisation, Phi row-major.</summary>
+    private static (double[] Phi, double[] Gamma) Discretize(Matrix<double> a, Vector<double> b, double h)
     {
-        int n = a.RowCount;
-        var m = Matrix<double>.Build.Dense(n + 1, n + 1);
-        m.SetSubMatrix(0, 0, a * h);
-        m.SetColumn(n, 0, n, b * h);
-        var e = MatrixExponential.Of(m);
-        return (e.SubMatrix(0, n, 0, n), e.Column(n, 0, n));
+        int n = a.RowCount, m = n + 1;
+        var aug = new double[m * m];
+        for (int i = 0; i < n; i++)
+        {
+            for (int j = 0; j < n; j++)
+            {
+                aug[(i * m) + j] = a[i, j] * h;
+            }
+
+            aug[(i * m) + n] = b[i] * h;
+        }
+
+        var e = MatrixExponential.Of(aug, m);
+        var phi = new double[n * n];
+        var gamma = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            for (int j = 0; j < n; j++)
+            {
+                phi[(i * n) + j] = e[(i * m) + j];
+            }
+
+            gamma[i] = e[(i * m) + n];
+        }
+
+        return (phi, gamma);
     }
 
     /// <summary>

@@ -109,6 +109,8 @@ public static class DesignAnalyzer
             loadStep = pade is null ? ls : ls with { Delay = DelayTreatment.Pade, PadeOrder = pade };
         }
 
+        var plantResponse = FrequencyResponse.Of(loop.Plant, grid);
+        var compResponse = FrequencyResponse.Of(loop.Compensator, grid);
         var steps = new List<Derivation>(plantSteps);
         steps.AddRange(CompensatorDerivations(design.Compensator, placement));
         steps.AddRange(MarginDerivations(margins));
@@ -123,9 +125,9 @@ public static class DesignAnalyzer
             Loop = loop,
             ResolvedPlacement = placement,
             Margins = margins,
-            PlantResponse = FrequencyResponse.Of(loop.Plant, grid),
-            CompensatorResponse = FrequencyResponse.Of(loop.Compensator, grid),
-            LoopResponse = FrequencyResponse.Of(t, grid),
+            PlantResponse = plantResponse,
+            CompensatorResponse = compResponse,
+            LoopResponse = plantResponse.Times(compResponse),
             ReferenceStep = refStep,
             LoadStep = loadStep,
             Criteria = criteria,

@@ -38,7 +38,7 @@ internal static class DesignFileReader
         using (doc)
         {
             var root = JsonFieldReader.Open(doc.RootElement, "$", errors);
-            if (errors.Count > 0 || !ReadHeader(root, errors))
+            if (!root.IsObject || !ReadHeader(root, errors))
             {
                 return new DesignFileResult(null, [.. errors]);
             }
@@ -218,7 +218,17 @@ internal static class DesignFileReader
             case CompensatorForm.Placement:
                 var g = c.Object("gain");
                 var kind = g.Word("kind", GainKinds);
-                double value = g.Number("value", kind switch { GainSettingKind.MidbandGainDb => "dB", GainSettingKind.IntegratorHz or GainSettingKind.CrossoverHz => "Hz", _ => string.Empty });
+                double value = double.NaN;
+                if (kind is GainSettingKind k)
+                {
+                    value = g.Number("value", k == GainSettingKind.MidbandGainDb ? "dB" : "Hz");
+                }
+                else
+                {
+                    // Without a valid kind the value's unit is unknown: it is checked once the kind is fixed.
+                    g.Has("value");
+                }
+
                 g.Finish("the compensator gain");
                 var placement = new CompensatorPlacement(
                     type ?? CompensatorType.TypeI,

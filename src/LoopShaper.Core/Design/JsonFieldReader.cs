@@ -26,6 +26,9 @@ internal sealed class JsonFieldReader
         _silent = silent;
     }
 
+    /// <summary>False for a silent reader (the object is missing or not an object).</summary>
+    public bool IsObject => !_silent;
+
     /// <summary>JSON path of this object, e.g. "$.plant.powerStage".</summary>
     public string Path { get; }
 

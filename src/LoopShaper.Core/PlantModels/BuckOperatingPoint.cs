@@ -44,7 +44,7 @@ public static class BuckOperatingPoint
             new("CCM/DCM boundary load", "Ibound = dI / 2 (K = 2L / (R Ts) = 1 - D at the boundary)", $"Ibound = {Format(ripple, "A")} / 2", Format(boundary, "A"), "Erickson & Maksimovic, 2nd ed., sec. 5.1"),
             new("Modulating voltage", "Veff = Vin + Vf - I (Ron - Rlow)", $"Veff = {Format(vin, "V")} + {Format(vf, "V")} - {Format(i, "A")} x ({Format(ron, "Ohm")} - {Format(rlow, "Ohm")})", Format(veff, "V"), "Erickson & Maksimovic, 2nd ed., sec. 7.2 (averaged small-signal model with losses)"),
             new("Average series resistance", "Rs = D Ron + D' Rlow + DCR", $"Rs = {d:F4} x {Format(ron, "Ohm")} + {dp:F4} x {Format(rlow, "Ohm")} + {Format(dcr, "Ohm")}", Format(rs, "Ohm"), "Erickson & Maksimovic, 2nd ed., sec. 7.2"),
-            new("Output ripple voltage", "dV = pk-pk of the triangular ripple current through Zc || R (64 harmonics)", $"dI = {Format(ripple, "A")}, fs = {Format(fs, "Hz")}", Format(vRipple, "V") + " pk-pk", "Fourier series of the inductor ripple; common practice, no source"),
+            new("Output ripple voltage", "dV = pk-pk of the triangular ripple current through Zc || R (48 harmonics)", $"dI = {Format(ripple, "A")}, fs = {Format(fs, "Hz")}", Format(vRipple, "V") + " pk-pk", "Fourier series of the inductor ripple; common practice, no source"),
         };
 
         return new OperatingPoint(at, d, dIdeal, rLoad, ripple, i + (ripple / 2), i - (ripple / 2), vRipple, mode, boundary, veff, rs, [.. steps]);
@@ -53,7 +53,7 @@ public static class BuckOperatingPoint
     /// <summary>Peak-to-peak of the triangular inductor ripple (rising for D Ts) driven through the output bank in parallel with the load.</summary>
     public static double OutputRipple(BuckPowerStage stage, double d, double rippleApp, double? rLoad)
     {
-        const int harmonics = 64, samples = 256;
+        const int harmonics = 48, samples = 128;
         double w = 2 * Math.PI * stage.SwitchingFrequencyHz;
         d = Math.Clamp(d, 1e-3, 1 - 1e-3);
         var v = new double[samples];
@@ -70,11 +70,14 @@ public static class BuckOperatingPoint
                 y += s * b.TotalCapacitanceF / (1 + (s * b.TotalEsrOhm * b.TotalCapacitanceF) + (s * s * b.TotalEslH * b.TotalCapacitanceF));
             }
 
-            var vk = ck / y;
+            var vk = 2.0 * ck / y;
+            var step = new Complex(Math.Cos(2 * Math.PI * k / samples), Math.Sin(2 * Math.PI * k / samples));
+            var rot = Complex.One;
             for (int n = 0; n < samples; n++)
             {
-                double ph = 2 * Math.PI * k * n / samples;
-                v[n] += 2 * ((vk.Real * Math.Cos(ph)) - (vk.Imaginary * Math.Sin(ph)));
+                // Re(vk e^{j 2 pi k n / N}) by a rotating phasor.
+                v[n] += (vk * rot).Real;
+                rot *= step;
             }
         }
 

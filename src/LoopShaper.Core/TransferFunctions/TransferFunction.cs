@@ -28,7 +28,10 @@ public sealed class TransferFunction
         Zeros = zeros;
         Poles = poles;
         DelayS = delayS;
+        _plan = EvaluationPlan.Build(gain, originOrder, zeros, poles, delayS);
     }
+
+    private readonly EvaluationPlan _plan;
 
     /// <summary>K: the coefficient of the low-frequency asymptote K s^n.</summary>
     public double Gain { get; }
@@ -152,21 +155,10 @@ public sealed class TransferFunction
     }
 
     /// <summary>Natural logarithm of |H(j omega)|, summed factor by factor.</summary>
-    public double LogMagnitude(double omega)
-    {
-        double acc = Math.Log(Math.Abs(Gain)) + (OriginOrder * Math.Log(omega));
-        foreach (var z in Zeros)
-        {
-            acc += Math.Log(Complex.Abs(Factor(z, omega)));
-        }
+    public double LogMagnitude(double omega) => _plan.LogMagnitude(omega);
 
-        foreach (var p in Poles)
-        {
-            acc -= Math.Log(Complex.Abs(Factor(p, omega)));
-        }
-
-        return acc;
-    }
+    /// <summary>Natural logarithm of |H(j omega)| and the continuous phase in radians, in one pass over the factors.</summary>
+    public void LogMagnitudeAndPhase(double omega, out double logMagnitude, out double phaseRad) => _plan.Evaluate(omega, out logMagnitude, out phaseRad);
 
     /// <summary>|H(j 2 pi f)| in dB (20 log10).</summary>
     public double MagnitudeDb(double frequencyHz) => 20.0 / Math.Log(10.0) * LogMagnitude(2.0 * Math.PI * frequencyHz);
@@ -176,21 +168,7 @@ public sealed class TransferFunction
     /// (and -pi for a negative K); a delay adds -omega Td. A root on the imaginary axis makes the phase jump by pi
     /// (+pi for zeros, -pi for poles), the limit from the left half plane.
     /// </summary>
-    public double PhaseRad(double omega)
-    {
-        double acc = (Gain < 0 ? -Math.PI : 0.0) + (OriginOrder * Math.PI / 2.0) - (omega * DelayS);
-        foreach (var z in Zeros)
-        {
-            acc += FactorAngle(z, omega);
-        }
-
-        foreach (var p in Poles)
-        {
-            acc -= FactorAngle(p, omega);
-        }
-
-        return acc;
-    }
+    public double PhaseRad(double omega) => _plan.Phase(omega);
 
     /// <summary>Continuous phase of H(j 2 pi f) in degrees.</summary>
     public double PhaseDeg(double frequencyHz) => PhaseRad(2.0 * Math.PI * frequencyHz) * 180.0 / Math.PI;
@@ -332,16 +310,6 @@ public sealed class TransferFunction
         return string.Create(inv, $"K={Gain:G6}, s^{OriginOrder}, zeros[Hz]=({Roots(Zeros)}), poles[Hz]=({Roots(Poles)}), Td={DelayS:G4}s");
     }
 
-    internal static Complex Factor(Complex root, double omega) => 1.0 - (new Complex(0, omega) / root);
-
-    /// <summary>arg(1 - j omega / r), continuous in omega; for a root on the imaginary axis the jump is +pi.</summary>
-    internal static double FactorAngle(Complex root, double omega)
-    {
-        var f = Factor(root, omega);
-        double im = root.Real == 0.0 ? 0.0 : f.Imaginary;
-        return Math.Atan2(im, f.Real);
-    }
-
     /// <summary>Geometric mean of the magnitudes of the non-zero roots; 1 when there are none.</summary>
     internal static double FrequencyScale(IEnumerable<Complex> roots)
     {
@@ -379,10 +347,16 @@ public sealed class TransferFunction
             return Constant(0.0);
         }
 
-        int a = num.LowestOrder, b = den.LowestOrder;
+        // Roots within round-off of the origin count as exactly there, and the gain comes from the coefficient of the
+        // matching power, so that a pole at 1e-17 does not turn into a gain 1e17 times too large (MARGIN-CASES 6).
+        var zr = num.Roots();
+        var pr = den.Roots();
+        double scale = FrequencyScale(zr.Concat(pr));
+        bool AtOrigin(Complex r) => Complex.Abs(r) <= OriginTolerance * scale;
+        int a = zr.Count(AtOrigin), b = pr.Count(AtOrigin);
         double gain = k * num.Coefficients[a] / den.Coefficients[b] * Math.Pow(w, b - a);
-        var zeros = num.Roots().Where(r => r != Complex.Zero).Select(r => r * w);
-        var poles = den.Roots().Where(r => r != Complex.Zero).Select(r => r * w);
+        var zeros = zr.Where(r => !AtOrigin(r)).Select(r => r * w);
+        var poles = pr.Where(r => !AtOrigin(r)).Select(r => r * w);
         return FromRoots(gain, a - b, zeros, poles, delayS);
     }
 
@@ -401,7 +375,8 @@ public sealed class TransferFunction
     private static Polynomial Rescale(Polynomial p, double w)
     {
         // p(w x): coefficient k times w^k.
-        return new Polynomial(p.Coefficients.Select((c, i) => c * Math.Pow(w, i)));
+        // In logarithms, so that c w^k stays finite when c and w^k alone would not (1e300 with w = 1e154).
+        return new Polynomial(p.Coefficients.Select((c, i) => c == 0.0 ? 0.0 : Math.Sign(c) * Math.Exp(Math.Log(Math.Abs(c)) + (i * Math.Log(w)))));
     }
 
     /// <summary>Moves near-origin roots into n, snaps near-axis roots onto the axis and pairs complex roots into exact conjugates.</summary>
