@@ -51,9 +51,7 @@ public sealed class DesignFileTests : BunitContext
         var workspace = new DesignWorkspace(TestDesigns.Demo, Services.GetRequiredService<Microsoft.Extensions.Logging.ILoggerFactory>().CreateLogger("t"));
         await workspace.RecomputeAsync();
         var before = DesignFile.Write(workspace.Form.Build());
-        string broken = DesignFile.Write(TestDesigns.Demo)
-            .Replace("\"inductanceH\": 6.8E-07", "\"inductanceH\": \"lots\"", StringComparison.Ordinal)
-            .Replace("\"inductanceH\": 6.8e-07", "\"inductanceH\": \"lots\"", StringComparison.Ordinal);
+        string broken = System.Text.RegularExpressions.Regex.Replace(DesignFile.Write(TestDesigns.Demo), "\"inductanceH\": [^,}\\n]+", "\"inductanceH\": \"lots\"");
         Assert.Contains("\"lots\"", broken, StringComparison.Ordinal);
 
         var cut = Render<DesignFilePanel>(p => p.Add(c => c.Workspace, workspace).Add(c => c.Demo, TestDesigns.Demo));

@@ -68,15 +68,15 @@ public sealed class DesignerPageTests : BunitContext
     {
         var cut = RenderReady();
         var row = cut.Find("[data-derivation='Ideal duty cycle']");
-        Assert.Contains("D0 = 1.20 V / 12.0 V", row.TextContent, StringComparison.Ordinal);
-        Assert.Contains("0.1000", row.TextContent, StringComparison.Ordinal);
+        Assert.Contains("D0 = 1.00 V / 12.0 V", row.TextContent, StringComparison.Ordinal);
+        Assert.Contains("0.0833", row.TextContent, StringComparison.Ordinal); // 1.0 / 12, by hand
 
         cut.Find("#f-plant-powerStage-inputVoltageV-nominal").Input("12.5");
         cut.WaitForAssertion(() =>
         {
             var changed = cut.Find("[data-derivation='Ideal duty cycle']");
-            Assert.Contains("D0 = 1.20 V / 12.5 V", changed.TextContent, StringComparison.Ordinal);
-            Assert.Contains("0.0960", changed.TextContent, StringComparison.Ordinal); // 1.2 / 12.5, by hand
+            Assert.Contains("D0 = 1.00 V / 12.5 V", changed.TextContent, StringComparison.Ordinal);
+            Assert.Contains("0.0800", changed.TextContent, StringComparison.Ordinal); // 1.0 / 12.5, by hand
         });
         Assert.Contains(cut.FindAll("[data-derivation]"), r => r.TextContent.Contains("Erickson & Maksimovic", StringComparison.Ordinal));
     }
@@ -86,13 +86,14 @@ public sealed class DesignerPageTests : BunitContext
     {
         var cut = RenderReady();
         var page = cut.Instance;
+        UsePlacement(cut);
         var slider = cut.Find("[data-target='Zero1'] .placement-slider");
 
-        // Analysis range 100 Hz .. 2 MHz: the middle of the slider is the geometric mean, sqrt(100 x 2e6) = 14.1 kHz.
+        // Analysis range 10 Hz .. 2 MHz: the middle of the slider is the geometric mean, sqrt(10 x 2e6) = 4.472 kHz.
         slider.Input((Placement.SliderSteps / 2).ToString(CultureInfo.InvariantCulture));
-        cut.WaitForAssertion(() => Assert.Equal(14140, page.Workspace.Form.Zero1.Value!.Value, 0));
-        Assert.Equal("14.14 kHz", page.Workspace.Form.Zero1.Text);
-        cut.WaitForAssertion(() => Assert.Equal(14140, ((LoopShaper.Core.Compensators.CompensatorPlacement)page.Workspace.AnalysedDesign!.Compensator).Zero1Hz!.Value, 0));
+        cut.WaitForAssertion(() => Assert.Equal(4472, page.Workspace.Form.Zero1.Value!.Value, 0));
+        Assert.Equal("4.472 kHz", page.Workspace.Form.Zero1.Text);
+        cut.WaitForAssertion(() => Assert.Equal(4472, ((LoopShaper.Core.Compensators.CompensatorPlacement)page.Workspace.AnalysedDesign!.Compensator).Zero1Hz!.Value, 0));
     }
 
     [Fact]
@@ -100,14 +101,16 @@ public sealed class DesignerPageTests : BunitContext
     {
         var cut = RenderReady();
         var page = cut.Instance;
+        UsePlacement(cut);
+        double z2 = page.Workspace.Form.Zero2.Value!.Value;
         cut.Find("[data-handle='Zero2']").Click();
         cut.WaitForAssertion(() => Assert.Equal(PlacementTarget.Zero2, page.Workspace.Selected));
 
         cut.Find(".bode").KeyDown(new Microsoft.AspNetCore.Components.Web.KeyboardEventArgs { Key = "ArrowRight" });
-        cut.WaitForAssertion(() => Assert.Equal(8e3 * Math.Pow(10, 0.02), page.Workspace.Form.Zero2.Value!.Value, tolerance: 1.0)); // 4 significant digits kept
+        cut.WaitForAssertion(() => Assert.Equal(z2 * Math.Pow(10, 0.02), page.Workspace.Form.Zero2.Value!.Value, tolerance: 1e-3 * z2)); // 4 significant digits kept
 
         cut.Find(".bode").KeyDown(new Microsoft.AspNetCore.Components.Web.KeyboardEventArgs { Key = "ArrowLeft", ShiftKey = true });
-        cut.WaitForAssertion(() => Assert.Equal(8e3 * Math.Pow(10, 0.02 - 0.1), page.Workspace.Form.Zero2.Value!.Value, tolerance: 1.0)); // 4 significant digits kept
+        cut.WaitForAssertion(() => Assert.Equal(z2 * Math.Pow(10, 0.02 - 0.1), page.Workspace.Form.Zero2.Value!.Value, tolerance: 1e-3 * z2)); // 4 significant digits kept
     }
 
     [Fact]
@@ -115,6 +118,7 @@ public sealed class DesignerPageTests : BunitContext
     {
         var cut = RenderReady();
         var page = cut.Instance;
+        UsePlacement(cut);
         var chart = cut.FindComponent<BodeChart>();
         var hit = chart.Instance.Figure.Hits.Single(h => h.Target == PlacementTarget.Pole1);
         var plotly = chart.FindComponent<Plotly.Blazor.PlotlyChart>().Instance;
@@ -161,6 +165,31 @@ public sealed class DesignerPageTests : BunitContext
     }
 
     private static string Pm(IRenderedComponent<Designer> cut) => cut.Find("[data-kpi-value='phase-margin']").TextContent;
+
+    [Fact]
+    public void Switching_from_parts_to_frequencies_keeps_the_loop()
+    {
+        var cut = RenderReady();
+        string pm = Pm(cut);
+        string fc = cut.Find("[data-kpi-value='crossover']").TextContent;
+        UsePlacement(cut);
+        Assert.Equal(CompensatorMode.Placement, cut.Instance.Workspace.Form.Mode);
+        Assert.Equal(pm, Pm(cut));
+        Assert.Equal(fc, cut.Find("[data-kpi-value='crossover']").TextContent);
+    }
+
+    // The demo's compensator is given by parts; the frequency controls appear after switching (the core resolves the placement).
+    private static void UsePlacement(IRenderedComponent<Designer> cut)
+    {
+        if (cut.Instance.Workspace.Form.Mode == CompensatorMode.Placement)
+        {
+            return;
+        }
+
+        int revision = cut.Instance.Workspace.Revision;
+        cut.Find("[data-use-placement]").Click();
+        cut.WaitForAssertion(() => Assert.True(cut.Instance.Workspace.Revision > revision && cut.FindAll("[data-target='Zero1']").Count == 1));
+    }
 
     private IRenderedComponent<Designer> RenderReady()
     {

@@ -75,7 +75,7 @@ public sealed class ErrorHandlingTests : BunitContext
         gate.SetResult();
         await first;
 
-        Assert.Equal(new[] { 0.68e-6, 1.5e-6 }, seen);
+        Assert.Equal(new[] { ((LoopShaper.Core.PlantModels.BuckPlant)TestDesigns.Demo.Plant).PowerStage.Inductor.InductanceH, 1.5e-6 }, seen);
         Assert.Equal(2, workspace.Revision);
     }
 
