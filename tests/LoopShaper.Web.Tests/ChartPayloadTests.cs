@@ -33,14 +33,20 @@ public sealed class ChartPayloadTests : BunitContext
         var x = loop.GetProperty("x").EnumerateArray().Select(v => v.GetDouble()).ToArray();
         var y = loop.GetProperty("y").EnumerateArray().Select(v => v.GetDouble()).ToArray();
 
-        // The magnitude trace is the core's loop response, point for point.
-        Assert.Equal(analysis.LoopResponse!.FrequencyHz.ToArray(), x);
-        Assert.Equal(analysis.LoopResponse.MagnitudeDb.ToArray(), y);
+        // The magnitude trace is the core's loop response: every point sent is a point of the core's grid (thinned to
+        // at most BodeFigure.MaxPoints, rounded for display to 6 digits in Hz and 0.001 dB), ends and extremes kept.
+        var r = analysis.LoopResponse!;
+        Assert.InRange(x.Length, 100, BodeFigure.MaxPoints + 2);
+        AssertOnCurve(r.FrequencyHz, r.MagnitudeDb, x, y, 1e-3);
+        Assert.Equal(r.FrequencyHz[0], x[0], 1e-6 * r.FrequencyHz[0]);
+        Assert.Equal(r.FrequencyHz[^1], x[^1], 1e-6 * r.FrequencyHz[^1]);
+        Assert.Equal(r.MagnitudeDb.Max(), y.Max(), 1e-3);
+        Assert.Equal(r.MagnitudeDb.Min(), y.Min(), 1e-3);
         Assert.Equal("y", loop.GetProperty("yaxis").GetString());
 
         var phase = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.LoopName + " phase");
         Assert.Equal("y2", phase.GetProperty("yaxis").GetString());
-        Assert.Equal(analysis.LoopResponse.PhaseDeg.ToArray(), phase.GetProperty("y").EnumerateArray().Select(v => v.GetDouble()).ToArray());
+        AssertOnCurve(r.FrequencyHz, r.PhaseDeg, [.. phase.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())], [.. phase.GetProperty("y").EnumerateArray().Select(v => v.GetDouble())], 1e-3);
 
         using var layout = Json(call.Arguments[2]);
         var text = layout.RootElement.GetRawText();
@@ -86,8 +92,10 @@ public sealed class ChartPayloadTests : BunitContext
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["react"]));
         using var data = Json(module.Invocations["react"].Single().Arguments[1]);
         var loop = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.LoopName);
-        Assert.Equal(second.LoopResponse!.MagnitudeDb.ToArray(), loop.GetProperty("y").EnumerateArray().Select(v => v.GetDouble()).ToArray());
-        Assert.NotEqual(first.LoopResponse!.MagnitudeDb.ToArray(), second.LoopResponse.MagnitudeDb.ToArray());
+        double[] x = [.. loop.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())];
+        double[] y = [.. loop.GetProperty("y").EnumerateArray().Select(v => v.GetDouble())];
+        AssertOnCurve(second.LoopResponse!.FrequencyHz, second.LoopResponse.MagnitudeDb, x, y, 1e-3);
+        Assert.Throws<Xunit.Sdk.EqualException>(() => AssertOnCurve(first.LoopResponse!.FrequencyHz, first.LoopResponse.MagnitudeDb, x, y, 1e-3));
     }
 
     [Fact]
@@ -103,7 +111,12 @@ public sealed class ChartPayloadTests : BunitContext
         using var data = Json(call.Arguments[1]);
         var names = data.RootElement.EnumerateArray().Select(t => t.GetProperty("name").GetString()!).ToList();
         var load = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString()!.StartsWith(StepFigure.LoadName, StringComparison.Ordinal));
-        Assert.Equal(analysis.LoadStep!.Value.ToArray(), load.GetProperty("y").EnumerateArray().Select(v => v.GetDouble()).ToArray());
+        var step = analysis.LoadStep!;
+        double[] ly = [.. load.GetProperty("y").EnumerateArray().Select(v => v.GetDouble())];
+        double quantum = 1e-5 * step.Value.Max(Math.Abs);
+        AssertOnCurve(step.TimeS, step.Value, [.. load.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())], ly, quantum);
+        Assert.InRange(ly.Length, 100, StepFigure.MaxPoints + 2);
+        Assert.Equal(step.Metrics.PeakDeviation, ly.Min(), quantum); // the undershoot peak survives thinning
         Assert.Contains(names, n => n.StartsWith(StepFigure.ReferenceName, StringComparison.Ordinal));
 
         using var layout = Json(call.Arguments[2]);
@@ -126,9 +139,16 @@ public sealed class ChartPayloadTests : BunitContext
         Assert.DoesNotContain("NaN", json, StringComparison.Ordinal);
         Assert.DoesNotContain("Infinity", json, StringComparison.Ordinal);
         var loop = (Plotly.Blazor.Traces.Scatter)figure.Data.First();
-        Assert.Null(loop.Y[3]);
-        Assert.Null(loop.Y[7]);
-        Assert.Equal(r.MagnitudeDb[4], loop.Y[4]);
+        Assert.All(loop.Y.OfType<double>(), v => Assert.True(double.IsFinite(v)));
+        var sentX = loop.X.OfType<double>().ToHashSet();
+        Assert.DoesNotContain(ChartNumbers.Significant(r.FrequencyHz[3], 6), sentX);
+        Assert.DoesNotContain(ChartNumbers.Significant(r.FrequencyHz[7], 6), sentX);
+
+        // Unthinned series turn such points into gaps.
+        var (_, ys) = ChartNumbers.Series(broken.FrequencyHz, broken.MagnitudeDb, 1e-3);
+        Assert.Null(ys[3]);
+        Assert.Null(ys[7]);
+        Assert.Equal(Math.Round(r.MagnitudeDb[4], 3), ys[4]);
     }
 
     [Fact]
@@ -139,6 +159,29 @@ public sealed class ChartPayloadTests : BunitContext
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
         await DisposeComponentsAsync();
         Assert.Single(module.Invocations["purge"]);
+    }
+
+    /// <summary>Every sent point (x, y) lies on the core's curve: x is one of its grid points (to 6 digits), y its value there within <paramref name="tolerance"/>.</summary>
+    private static void AssertOnCurve(System.Collections.Immutable.ImmutableArray<double> coreX, System.Collections.Immutable.ImmutableArray<double> coreY, double[] x, double[] y, double tolerance)
+    {
+        Assert.Equal(x.Length, y.Length);
+        for (int i = 0; i < x.Length; i++)
+        {
+            int k = 0;
+            double best = double.PositiveInfinity;
+            for (int j = 0; j < coreX.Length; j++)
+            {
+                double d = Math.Abs(coreX[j] - x[i]);
+                if (d < best)
+                {
+                    best = d;
+                    k = j;
+                }
+            }
+
+            Assert.True(best <= 1e-5 * Math.Max(Math.Abs(x[i]), 1e-12), $"x = {x[i]} is not on the core's grid");
+            Assert.Equal(coreY[k], y[i], tolerance);
+        }
     }
 
     private static JsonDocument Json(object? argument) => JsonDocument.Parse(JsonSerializer.Serialize(argument));

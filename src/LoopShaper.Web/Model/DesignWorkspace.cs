@@ -79,7 +79,12 @@ public sealed class DesignWorkspace
                 var design = Form.Build();
                 try
                 {
+                    long started = System.Diagnostics.Stopwatch.GetTimestamp();
                     var analysis = await Task.Run(() => _analyze(design)).ConfigureAwait(true);
+                    if (_logger.IsEnabled(LogLevel.Debug))
+                    {
+                        _logger.LogDebug("Analysed '{Name}' in {Ms:F1} ms", design.Name, System.Diagnostics.Stopwatch.GetElapsedTime(started).TotalMilliseconds);
+                    }
                     Analysis = analysis;
                     AnalysedDesign = design;
                     Issues = new FieldIssues(analysis.Issues);

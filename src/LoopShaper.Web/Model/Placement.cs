@@ -19,6 +19,18 @@ public static class Placement
         _ => form.Pole2,
     };
 
+    /// <summary>What the engineer calls a target; the gain by what fixes it.</summary>
+    public static string NameOf(DesignForm form, PlacementTarget target) => target switch
+    {
+        PlacementTarget.Gain => form.GainKind switch
+        {
+            LoopShaper.Core.Compensators.GainSettingKind.CrossoverHz => "Crossover target",
+            LoopShaper.Core.Compensators.GainSettingKind.IntegratorHz => "Integrator frequency fi",
+            _ => "Mid-band gain",
+        },
+        _ => FieldOf(form, target).Label,
+    };
+
     /// <summary>The target that edits a field, or null.</summary>
     public static PlacementTarget? TargetOf(DesignForm form, FieldState field)
         => Enum.GetValues<PlacementTarget>().Cast<PlacementTarget?>().FirstOrDefault(t => ReferenceEquals(FieldOf(form, t!.Value), field));

@@ -77,9 +77,17 @@ public sealed partial class BodeChart
         if (_drawn && _needsRedraw && _chart is not null)
         {
             _needsRedraw = false;
+            long started = System.Diagnostics.Stopwatch.GetTimestamp();
             await _chart.React();
+            if (Logger.IsEnabled(LogLevel.Debug))
+            {
+                Logger.LogDebug("Bode chart react sent in {Ms:F1} ms", System.Diagnostics.Stopwatch.GetElapsedTime(started).TotalMilliseconds);
+            }
         }
     }
+
+    [Inject]
+    private ILogger<BodeChart> Logger { get; set; } = default!;
 
     private async void OnFirstDraw()
     {

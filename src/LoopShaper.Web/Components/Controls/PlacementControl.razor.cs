@@ -33,6 +33,8 @@ public partial class PlacementControl
 
     private bool IsSelected => Selected == Target;
 
+    private string Name => Placement.NameOf(Form, Target);
+
     private bool Logarithmic => Placement.IsFrequency(Form, Target);
 
     private (double Min, double Max) Range => Logarithmic ? Placement.FrequencyRange(Form) : Placement.GainRangeDb;

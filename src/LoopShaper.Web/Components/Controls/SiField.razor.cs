@@ -17,6 +17,14 @@ public partial class SiField
     [Parameter]
     public FieldIssues Issues { get; set; } = FieldIssues.None;
 
+    /// <summary>False hides the label visually (it stays for screen readers), when a heading beside the field names it.</summary>
+    [Parameter]
+    public bool ShowLabel { get; set; } = true;
+
+    /// <summary>Label text instead of the field's own.</summary>
+    [Parameter]
+    public string? LabelText { get; set; }
+
     /// <summary>Raised after the text changed.</summary>
     [Parameter]
     public EventCallback<FieldState> OnChanged { get; set; }

@@ -33,6 +33,9 @@ public static class BodeFigure
     /// <summary>Compensator trace name.</summary>
     public const string CompensatorName = "compensator Gc";
 
+    /// <summary>Most points drawn per trace.</summary>
+    public const int MaxPoints = 500;
+
     /// <summary>Builds the figure of an analysis.</summary>
     public static ChartFigure Build(DesignAnalysis analysis, BodeTraces show, PlacementTarget? selected)
     {
@@ -75,29 +78,32 @@ public static class BodeFigure
         var phaseRange = PhaseRange(visible.SelectMany(r => r.PhaseDeg));
 
         // Gain crossovers: a dashed line through both panels, a dot at 0 dB and the phase margin beside the phase.
+        var fcs = margins.GainCrossovers.Select(g => g.FrequencyHz).ToArray();
+        var f180s = margins.PhaseCrossovers.Select(p => p.FrequencyHz).ToArray();
+        data.Add(VerticalLines(fcs, magRange, "y", ChartPalette.Margin, "crossover"));
+        data.Add(VerticalLines(fcs, phaseRange, "y2", ChartPalette.Margin, "crossover"));
+        data.Add(Points("crossover", fcs, [.. fcs.Select(_ => 0.0)], "y", ChartPalette.Margin, MarkerSymbol.Circle, 10, false));
+        data.Add(Points("phase at crossover", fcs, [.. margins.GainCrossovers.Select(g => g.PhaseDeg)], "y2", ChartPalette.Margin, MarkerSymbol.Circle, 10, false));
+        data.Add(VerticalLines(f180s, magRange, "y", ChartPalette.GainMargin, "phase crossover"));
+        data.Add(VerticalLines(f180s, phaseRange, "y2", ChartPalette.GainMargin, "phase crossover"));
+        data.Add(Points("|T| at phase crossover", f180s, [.. margins.PhaseCrossovers.Select(p => p.MagnitudeDb)], "y", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
+        data.Add(Points("phase crossover", f180s, [.. margins.PhaseCrossovers.Select(p => p.CriticalPhaseDeg)], "y2", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
         foreach (var g in margins.GainCrossovers)
         {
-            data.Add(VerticalLine(g.FrequencyHz, magRange, "y", ChartPalette.Margin, "crossover", true));
-            data.Add(VerticalLine(g.FrequencyHz, phaseRange, "y2", ChartPalette.Margin, "crossover", false));
-            data.Add(Points("crossover " + FormatHz(g.FrequencyHz), [g.FrequencyHz], [0.0], "y", ChartPalette.Margin, MarkerSymbol.Circle, 10, false));
-            data.Add(Points("phase at crossover", [g.FrequencyHz], [g.PhaseDeg], "y2", ChartPalette.Margin, MarkerSymbol.Circle, 10, false));
             bool worst = margins.WorstCrossover == g;
             annotations.Add(Note(
                 g.FrequencyHz, g.PhaseDeg, "y2",
                 $"fc {FormatHz(g.FrequencyHz)}<br><b>PM {Num(g.PhaseMarginDeg, "F1")}°</b>{(worst && margins.HasMultipleCrossovers ? " (smallest)" : string.Empty)}",
-                ChartPalette.Margin, 48, -42));
+                ChartPalette.Margin, NearRightEdge(g.FrequencyHz, analysis) ? -80 : 48, -42));
         }
 
         // Phase crossovers: the magnitude there, and the gain margin.
         foreach (var p in margins.PhaseCrossovers)
         {
-            data.Add(VerticalLine(p.FrequencyHz, magRange, "y", ChartPalette.GainMargin, "phase crossover", true));
-            data.Add(VerticalLine(p.FrequencyHz, phaseRange, "y2", ChartPalette.GainMargin, "phase crossover", false));
-            data.Add(Points("|T| at phase crossover", [p.FrequencyHz], [p.MagnitudeDb], "y", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
-            data.Add(Points("phase crossover", [p.FrequencyHz], [p.CriticalPhaseDeg], "y2", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
             string kind = p.GainMarginDb >= 0 ? "GM" : "lower GM";
             int k = annotations.Count(n => n.YRef == "y");
-            annotations.Add(Note(p.FrequencyHz, p.MagnitudeDb, "y", $"{kind} <b>{Num(p.GainMarginDb, "F1")} dB</b><br>at {FormatHz(p.FrequencyHz)}", ChartPalette.GainMargin, k % 2 == 0 ? -70 : 40, 48));
+            int ax = k % 2 == 0 ? -70 : 40;
+            annotations.Add(Note(p.FrequencyHz, p.MagnitudeDb, "y", $"{kind} <b>{Num(p.GainMarginDb, "F1")} dB</b><br>at {FormatHz(p.FrequencyHz)}", ChartPalette.GainMargin, NearRightEdge(p.FrequencyHz, analysis) ? -Math.Abs(ax) - 30 : ax, 48));
         }
 
         // The -180 + k 360 degree levels inside the phase panel, and 0 dB.
@@ -124,13 +130,17 @@ public static class BodeFigure
 
     private static void AddResponse(List<ITrace> data, FrequencyResponse r, string name, string color, string dash, decimal width, bool show)
     {
+        // Magnitude to a thousandth of a dB and phase to a thousandth of a degree: far below what a chart can show.
+        // Long responses are thinned for drawing, keeping each bucket's extremes (resonance peaks survive).
+        var mag = ChartNumbers.Thinned(r.FrequencyHz, r.MagnitudeDb, MaxPoints, 1e-3);
+        var phase = ChartNumbers.Thinned(r.FrequencyHz, r.PhaseDeg, MaxPoints, 1e-3);
         data.Add(new Scatter
         {
             Name = name,
             LegendGroup = name,
             Mode = ModeFlag.Lines,
-            X = ChartNumbers.Xs(r.FrequencyHz, r.MagnitudeDb),
-            Y = ChartNumbers.Ys(r.FrequencyHz, r.MagnitudeDb),
+            X = mag.X,
+            Y = mag.Y,
             XAxis = "x",
             YAxis = "y",
             Line = new Line { Color = color, Width = width, Dash = dash },
@@ -143,8 +153,8 @@ public static class BodeFigure
             LegendGroup = name,
             ShowLegend = false,
             Mode = ModeFlag.Lines,
-            X = ChartNumbers.Xs(r.FrequencyHz, r.PhaseDeg),
-            Y = ChartNumbers.Ys(r.FrequencyHz, r.PhaseDeg),
+            X = phase.X,
+            Y = phase.Y,
             XAxis = "x",
             YAxis = "y2",
             Line = new Line { Color = color, Width = width, Dash = dash },
@@ -245,6 +255,9 @@ public static class BodeFigure
 
     private static IEnumerable<Complex> UpperHalf(ImmutableArray<Complex> roots) => roots.Where(r => r.Imaginary >= 0);
 
+    private static bool NearRightEdge(double hz, DesignAnalysis a)
+        => Math.Log(hz / a.Design.Analysis.StartHz) / Math.Log(a.Design.Analysis.StopHz / a.Design.Analysis.StartHz) > 0.78;
+
     private static bool InRange(double hz, DesignAnalysis a) => double.IsFinite(hz) && hz >= a.Design.Analysis.StartHz && hz <= a.Design.Analysis.StopHz;
 
     private static Scatter Points(string name, double[] x, double[] y, string yAxis, string color, MarkerSymbol symbol, int size, bool legend, string? hoverName = null)
@@ -264,14 +277,15 @@ public static class BodeFigure
         };
     }
 
-    private static Scatter VerticalLine(double hz, (double Min, double Max) range, string yAxis, string color, string name, bool legend) => new()
+    /// <summary>Dashed vertical lines at each frequency across one panel, in one trace (gaps between them).</summary>
+    private static Scatter VerticalLines(double[] hz, (double Min, double Max) range, string yAxis, string color, string name) => new()
     {
         Name = name,
         LegendGroup = name,
         ShowLegend = false,
         Mode = ModeFlag.Lines,
-        X = [hz, hz],
-        Y = [range.Min, range.Max],
+        X = [.. hz.Where(double.IsFinite).SelectMany(f => new object?[] { f, f, null })],
+        Y = [.. hz.Where(double.IsFinite).SelectMany(_ => new object?[] { range.Min, range.Max, null })],
         XAxis = "x",
         YAxis = yAxis,
         Line = new Line { Color = color, Width = 1.6m, Dash = "dash" },

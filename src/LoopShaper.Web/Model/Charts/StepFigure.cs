@@ -24,6 +24,9 @@ public static class StepFigure
     /// <summary>Reference-step trace name.</summary>
     public const string ReferenceName = "reference step";
 
+    /// <summary>Most points drawn per response; longer ones are thinned keeping each bucket's extremes.</summary>
+    public const int MaxPoints = 400;
+
     /// <summary>Builds the figure of an analysis.</summary>
     public static ChartFigure Build(DesignAnalysis analysis)
     {
@@ -66,12 +69,13 @@ public static class StepFigure
 
     private static void AddStep(List<ITrace> data, List<Annotation> notes, StepResponse r, string x, string y, string name, string color, bool isLoad)
     {
+        var series = ChartNumbers.Thinned(r.TimeS, r.Value, MaxPoints);
         data.Add(new Scatter
         {
             Name = name,
             Mode = ModeFlag.Lines,
-            X = ChartNumbers.Xs(r.TimeS, r.Value),
-            Y = ChartNumbers.Ys(r.TimeS, r.Value),
+            X = series.X,
+            Y = series.Y,
             XAxis = x,
             YAxis = y,
             Line = new Line { Color = color, Width = 2.8m },
