@@ -1,5 +1,5 @@
-using LoopShaper.Web.Components;
 using LoopShaper.Web;
+using LoopShaper.Web.Components;
 
 var builder = WebApplication.CreateBuilder(args);
 
@@ -19,6 +19,7 @@ if (!app.Environment.IsDevelopment())
 app.UseAntiforgery();
 app.MapStaticAssets();
 app.MapDesignFileEndpoints();
+app.Map("/error", () => Results.Problem("The workspace hit an unexpected error; the server log has the details."));
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 
 app.Run();
