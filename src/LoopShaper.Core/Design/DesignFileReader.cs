@@ -51,13 +51,15 @@ internal static class DesignFileReader
             var analysis = analysisFields is null ? new AnalysisSettings() : ReadAnalysis(analysisFields);
             var criteriaFields = root.OptionalObject("criteria");
             var criteria = criteriaFields is null ? new DesignCriteria() : ReadCriteria(criteriaFields);
+            var synthesisFields = root.OptionalObject("synthesis");
+            var synthesis = synthesisFields is null ? null : SynthesisSectionReader.Read(synthesisFields);
             root.Finish("a design file");
             if (errors.Count > 0 || plant is null || compensator is null)
             {
                 return new DesignFileResult(null, [.. errors]);
             }
 
-            return new DesignFileResult(new LoopDesign(name, description, plant, compensator, analysis, criteria), []);
+            return new DesignFileResult(new LoopDesign(name, description, plant, compensator, analysis, criteria, synthesis), []);
         }
     }
 

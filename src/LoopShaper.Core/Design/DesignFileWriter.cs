@@ -51,6 +51,11 @@ internal sealed class DesignFileWriter
         Object("compensator", () => Compensator(d.Compensator));
         Object("analysis", () => Analysis(d.Analysis));
         Object("criteria", () => Criteria(d.Criteria));
+        if (d.Synthesis is { } synthesis)
+        {
+            Object("synthesis", () => Synthesis(synthesis));
+        }
+
         _w.WriteEndObject();
     }
 
@@ -233,6 +238,24 @@ internal sealed class DesignFileWriter
         NullableNumber("maxLoadStepDeviationV", k.MaxLoadStepDeviationV);
         Number("minRippleFraction", k.MinRippleFraction);
         Number("maxRippleFraction", k.MaxRippleFraction);
+    }
+
+    private void Synthesis(SynthesisSettings s)
+    {
+        NullableNumber("r1Ohm", s.R1Ohm);
+        _w.WriteString("resistorSeries", s.ResistorSeries.ToString());
+        _w.WriteString("capacitorSeries", s.CapacitorSeries.ToString());
+        Number("resistorTolerancePct", s.ResistorTolerancePct);
+        Number("capacitorTolerancePct", s.CapacitorTolerancePct);
+        Object("tolerances", () =>
+        {
+            foreach (var (designator, pct) in s.TolerancesPct)
+            {
+                Number(designator, pct);
+            }
+        });
+        _w.WriteBoolean("searchNeighbours", s.SearchNeighbours);
+        _w.WriteNumber("searchSteps", s.SearchSteps);
     }
 
     private void Object(string name, Action body)

@@ -10,4 +10,5 @@ namespace LoopShaper.Core.Design;
 /// <param name="Compensator">Compensator by placement or by parts.</param>
 /// <param name="Analysis">Analysis settings.</param>
 /// <param name="Criteria">Design criteria.</param>
-public sealed record LoopDesign(string Name, string Description, Plant Plant, Compensator Compensator, AnalysisSettings Analysis, DesignCriteria Criteria);
+/// <param name="Synthesis">How the compensator's parts are chosen and their tolerances; null when the design file has no "synthesis" section.</param>
+public sealed record LoopDesign(string Name, string Description, Plant Plant, Compensator Compensator, AnalysisSettings Analysis, DesignCriteria Criteria, SynthesisSettings? Synthesis = null);

@@ -1,6 +1,7 @@
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
+using LoopShaper.Core.Synthesis;
 using LoopShaper.Core.TransferFunctions;
 using static LoopShaper.Core.Units.EngineeringFormat;
 
@@ -30,6 +31,11 @@ public static class DesignValidator
         ValidateCompensator(c, design.Compensator);
         ValidateAnalysis(c, design.Analysis);
         ValidateCriteria(c, design.Criteria);
+        if (design.Synthesis is { } synthesis)
+        {
+            ValidateSynthesis(c, synthesis, design.Compensator);
+        }
+
         return c.Issues;
     }
 
@@ -363,6 +369,34 @@ public static class DesignValidator
         if (ok && k.MinRippleFraction > k.MaxRippleFraction)
         {
             c.Error($"{p}.minRippleFraction", "must not exceed criteria.maxRippleFraction.");
+        }
+    }
+
+    /// <summary>The synthesis section: the ranges of the component synthesis (NetworkSynthesizer.Validate) and the designators.</summary>
+    private static void ValidateSynthesis(Checks c, SynthesisSettings s, Compensator compensator)
+    {
+        const string p = "synthesis";
+        if (s.R1Ohm is double r1)
+        {
+            c.InRange($"{p}.r1Ohm", r1, 1, 1e9, "Ohm");
+        }
+
+        foreach (string d in s.TolerancesPct.Keys.Where(d => !SynthesisSettings.Designators.Contains(d)))
+        {
+            c.Error($"{p}.tolerances.{d}", $"'{d}' is not a part of an op-amp network: allowed {string.Join(", ", SynthesisSettings.Designators)}.");
+        }
+
+        // R1 is checked above against the same range as compensator.r1Ohm.
+        c.AddRange(NetworkSynthesizer.Validate(s.ToOptions() with { R1Ohm = null }));
+        var present = new HashSet<string>(compensator.Type switch
+        {
+            CompensatorType.TypeI => ["R1", "C1"],
+            CompensatorType.TypeII => ["R1", "R2", "C1", "C2"],
+            _ => ["R1", "R2", "R3", "C1", "C2", "C3"],
+        }, StringComparer.Ordinal) { OpAmpNetworkParts.DividerBottom };
+        foreach (string d in s.TolerancesPct.Keys.Where(d => SynthesisSettings.Designators.Contains(d) && !present.Contains(d)))
+        {
+            c.Warn($"{p}.tolerances.{d}", $"a {compensator.Type} network has no {d}; its tolerance is not used.");
         }
     }
 }
