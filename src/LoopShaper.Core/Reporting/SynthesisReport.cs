@@ -1,0 +1,131 @@
+using System.Collections.Immutable;
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Derivations;
+using LoopShaper.Core.Synthesis;
+
+namespace LoopShaper.Core.Reporting;
+
+/// <summary>
+/// The result of a component synthesis as plain data for the command line, files and the web app: every part with
+/// ideal, snapped and chosen values, the loop with ideal, snapped and chosen parts, and the criteria judged on the
+/// design built with the chosen parts. Null means "none in the analysed range", never NaN.
+/// Written by <see cref="SynthesisReportJson"/> and <see cref="SynthesisReportText"/>.
+/// </summary>
+public sealed record SynthesisReport
+{
+    /// <summary>The value of the "format" field of a JSON report.</summary>
+    public const string FormatName = "loopshaper-synthesis";
+
+    /// <summary>Always <see cref="FormatName"/>.</summary>
+    public string Format { get; init; } = FormatName;
+
+    /// <summary>Version of the report layout.</summary>
+    public int Version { get; init; } = 1;
+
+    /// <summary>Name of the design.</summary>
+    public required string Name { get; init; }
+
+    /// <summary>"typeI", "typeII" or "typeIII": the op-amp network synthesised.</summary>
+    public required string CompensatorType { get; init; }
+
+    /// <summary>Series of the resistors.</summary>
+    public required string ResistorSeries { get; init; }
+
+    /// <summary>Series of the capacitors.</summary>
+    public required string CapacitorSeries { get; init; }
+
+    /// <summary>True when the neighbour search was asked for.</summary>
+    public required bool SearchNeighbours { get; init; }
+
+    /// <summary>Steps up and down per part in the search.</summary>
+    public required int SearchSteps { get; init; }
+
+    /// <summary>Crossover aimed for, Hz.</summary>
+    public double? TargetCrossoverHz { get; init; }
+
+    /// <summary>Phase margin aimed for, degrees.</summary>
+    public double? TargetPhaseMarginDeg { get; init; }
+
+    /// <summary>Every part of the network.</summary>
+    public required ImmutableArray<SynthesisPartReport> Parts { get; init; }
+
+    /// <summary>The loop with the ideal parts.</summary>
+    public required LoopPerformanceReport Ideal { get; init; }
+
+    /// <summary>The loop with the snapped parts.</summary>
+    public required LoopPerformanceReport Snapped { get; init; }
+
+    /// <summary>The loop with the searched parts; null when no search ran or it found nothing.</summary>
+    public LoopPerformanceReport? Searched { get; init; }
+
+    /// <summary>Combinations the search scored; null without a search.</summary>
+    public int? SearchCandidates { get; init; }
+
+    /// <summary>True when the design built with the chosen parts meets every criterion.</summary>
+    public required bool MeetsCriteria { get; init; }
+
+    /// <summary>Each criterion judged on the design built with the chosen parts.</summary>
+    public required ImmutableArray<CriterionReport> Criteria { get; init; }
+
+    /// <summary>Impractical values, missed targets, and the warnings of the design built with the chosen parts.</summary>
+    public required ImmutableArray<string> Warnings { get; init; }
+
+    /// <summary>How every part was computed and snapped.</summary>
+    public required ImmutableArray<DerivationReport> Derivations { get; init; }
+
+    /// <summary>The report of a design synthesis.</summary>
+    public static SynthesisReport From(DesignSynthesis result)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        var s = result.Synthesis;
+        var chosen = s.ChosenParts.ToDictionary(p => p.Designator, StringComparer.Ordinal);
+        var built = result.BuiltAnalysis;
+        var warnings = s.Warnings
+            .Concat(built.Issues.Where(i => i.Severity == Validation.Severity.Warning).Select(i => $"{IssueReport.PathOf(i.Field)}: {i.Message}"))
+            .Concat(built.Warnings)
+            .Distinct(StringComparer.Ordinal);
+        return new SynthesisReport
+        {
+            Name = result.Design.Name,
+            CompensatorType = TypeWord(s.IdealNetwork.Type),
+            ResistorSeries = result.Options.ResistorSeries.ToString(),
+            CapacitorSeries = result.Options.CapacitorSeries.ToString(),
+            SearchNeighbours = result.Options.SearchNeighbours,
+            SearchSteps = result.Options.SearchSteps,
+            TargetCrossoverHz = AnalysisReport.Finite(s.TargetCrossoverHz),
+            TargetPhaseMarginDeg = AnalysisReport.Finite(s.TargetPhaseMarginDeg),
+            Parts = [.. s.Parts.Select(p =>
+            {
+                var c = chosen[p.Designator];
+                return new SynthesisPartReport(
+                    p.Designator,
+                    p.Kind == PartKind.Resistor ? "resistor" : "capacitor",
+                    p.Unit,
+                    p.Role,
+                    AnalysisReport.Finite(p.Value.IdealValue),
+                    AnalysisReport.Finite(p.Value.Value),
+                    AnalysisReport.Finite(p.Value.ErrorPct),
+                    AnalysisReport.Finite(c.Value.Value),
+                    AnalysisReport.Finite(c.Value.ErrorPct),
+                    c.Value.Series.ToString(),
+                    AnalysisReport.Finite(c.Tolerance.TolerancePct));
+            })],
+            Ideal = PerformanceOf(s.Ideal),
+            Snapped = PerformanceOf(s.Snapped),
+            Searched = s.Search is { } r ? PerformanceOf(r.Performance) : null,
+            SearchCandidates = s.Search?.CandidatesTried,
+            MeetsCriteria = result.MeetsCriteria,
+            Criteria = [.. built.Criteria.Select(c => new CriterionReport(c.Name, IssueReport.PathOf(c.Field), c.Passed, c.Actual, c.Limit))],
+            Warnings = [.. warnings],
+            Derivations = [.. s.Derivations.Select(DerivationOf)],
+        };
+    }
+
+    /// <summary>The design-file word of a compensator type.</summary>
+    internal static string TypeWord(CompensatorType type) => type switch { Compensators.CompensatorType.TypeI => "typeI", Compensators.CompensatorType.TypeII => "typeII", _ => "typeIII" };
+
+    internal static DerivationReport DerivationOf(Derivation d) => new(d.Quantity, d.Formula, d.Substituted, d.Result, d.Source);
+
+    private static LoopPerformanceReport PerformanceOf(LoopPerformance p)
+        => new(AnalysisReport.Finite(p.CrossoverHz), AnalysisReport.Finite(p.PhaseMarginDeg), AnalysisReport.Finite(p.GainMarginDb), p.CrossoverCount, p.IsClosedLoopStable);
+}

@@ -1,0 +1,15 @@
+using LoopShaper.Core.Design;
+
+namespace LoopShaper.Core.Synthesis;
+
+/// <summary>The parts of a design's compensator, and the design analysed again with the parts to build.</summary>
+/// <param name="Design">The design as given.</param>
+/// <param name="Options">The synthesis options used (the design's synthesis section, overridden where asked).</param>
+/// <param name="Synthesis">Ideal, snapped and searched parts with their loop figures.</param>
+/// <param name="BuiltDesign">The design with the parts to build as its compensator (and R1 / R4 as its divider).</param>
+/// <param name="BuiltAnalysis">The full analysis of <paramref name="BuiltDesign"/>: margins, steps, criteria.</param>
+public sealed record DesignSynthesis(LoopDesign Design, SynthesisOptions Options, NetworkSynthesis Synthesis, LoopDesign BuiltDesign, DesignAnalysis BuiltAnalysis)
+{
+    /// <summary>True when the design with the parts to build meets every criterion.</summary>
+    public bool MeetsCriteria => BuiltAnalysis.MeetsCriteria;
+}

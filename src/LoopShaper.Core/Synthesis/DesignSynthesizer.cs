@@ -1,0 +1,62 @@
+using System.Collections.Immutable;
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Design;
+using LoopShaper.Core.PlantModels;
+using LoopShaper.Core.Validation;
+
+namespace LoopShaper.Core.Synthesis;
+
+/// <summary>
+/// Synthesises the op-amp network of a design (<see cref="NetworkSynthesizer"/>) and analyses the design again with
+/// the parts to build, so that the criteria are judged on the values that go on the board.
+/// </summary>
+public static class DesignSynthesizer
+{
+    /// <summary>The synthesis options of a design: its synthesis section, or the section's defaults.</summary>
+    public static SynthesisOptions OptionsOf(LoopDesign design) => (design.Synthesis ?? new SynthesisSettings()).ToOptions();
+
+    /// <summary>
+    /// Synthesises and re-analyses; false with the reasons (field-named, design-file paths) for an invalid design, bad
+    /// options or a placement no op-amp network realises. Warnings come back in <paramref name="issues"/> either way.
+    /// </summary>
+    public static bool TrySynthesize(LoopDesign design, SynthesisOptions options, out DesignSynthesis? result, out ImmutableArray<ValidationIssue> issues)
+    {
+        result = null;
+        issues = [.. DesignValidator.Validate(design), .. NetworkSynthesizer.Validate(options)];
+        if (issues.Any(i => i.Severity == Severity.Error))
+        {
+            return false;
+        }
+
+        NetworkSynthesis synthesis;
+        try
+        {
+            synthesis = NetworkSynthesizer.Synthesize(design, options);
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+        {
+            issues = issues.Add(new ValidationIssue("compensator", "no op-amp network was synthesised: " + ex.Message.Split(" (Parameter")[0]));
+            return false;
+        }
+
+        var built = WithParts(design, synthesis.ChosenNetwork);
+        var analysis = DesignAnalyzer.Analyze(built);
+        if (!analysis.IsValid)
+        {
+            issues = issues.AddRange(analysis.Issues.Where(i => i.Severity == Severity.Error));
+            return false;
+        }
+
+        result = new DesignSynthesis(design, options, synthesis, built, analysis);
+        return true;
+    }
+
+    /// <summary>
+    /// The design with a network as its compensator. For a buck whose network carries the divider's bottom resistor,
+    /// the feedback divider becomes R1 over R4: R1 is the divider's top resistor (shared/CONVENTIONS.md).
+    /// </summary>
+    public static LoopDesign WithParts(LoopDesign design, OpAmpNetwork network)
+        => design.Plant is BuckPlant buck && network.RBottomOhm > 0
+            ? design with { Compensator = network, Plant = buck with { Feedback = new FeedbackDivider(network.R1Ohm, network.RBottomOhm, buck.Feedback.ReferenceV) } }
+            : design with { Compensator = network };
+}
