@@ -1,13 +1,58 @@
 using LoopShaper.Core.Design;
 using LoopShaper.Core.Reporting;
+using LoopShaper.Core.Validation;
 
 namespace LoopShaper.Cli;
 
 /// <summary>Reads a design file and analyses it, writing every input error to the error stream with its JSON path.</summary>
 internal static class DesignLoader
 {
+    /// <summary>A design that reads and passes validation (warnings allowed), or null after writing the errors.</summary>
+    public static LoopDesign? Load(string file, TextWriter error)
+    {
+        if (Read(file, error) is not { } design)
+        {
+            return null;
+        }
+
+        var errors = DesignValidator.Validate(design).Where(i => i.Severity == Severity.Error).ToList();
+        ReportAll(error, file, errors);
+        return errors.Count == 0 ? design : null;
+    }
+
+    /// <summary>Writes findings to the error stream, each with the file and the field's JSON path.</summary>
+    public static void ReportAll(TextWriter error, string file, IEnumerable<ValidationIssue> issues)
+    {
+        foreach (var issue in issues)
+        {
+            Report(error, file, IssueReport.From(issue));
+        }
+    }
+
     /// <summary>The analysis of a valid design, or null after writing the errors.</summary>
     public static DesignAnalysis? Analyze(string file, TextWriter error)
+    {
+        if (Read(file, error) is not { } design)
+        {
+            return null;
+        }
+
+        var analysis = DesignAnalyzer.Analyze(design);
+        if (!analysis.IsValid)
+        {
+            foreach (var issue in analysis.Issues.Select(IssueReport.From))
+            {
+                Report(error, file, issue);
+            }
+
+            return null;
+        }
+
+        return analysis;
+    }
+
+    /// <summary>The design a file holds, or null after writing the read errors.</summary>
+    private static LoopDesign? Read(string file, TextWriter error)
     {
         string json;
         try
@@ -31,18 +76,7 @@ internal static class DesignLoader
             return null;
         }
 
-        var analysis = DesignAnalyzer.Analyze(design);
-        if (!analysis.IsValid)
-        {
-            foreach (var issue in analysis.Issues.Select(IssueReport.From))
-            {
-                Report(error, file, issue);
-            }
-
-            return null;
-        }
-
-        return analysis;
+        return design;
     }
 
     /// <summary>Writes text to a file, or to the output when no file is given; false after writing the error.</summary>

@@ -1,0 +1,81 @@
+using System.CommandLine;
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Exports;
+using LoopShaper.Core.PlantModels;
+using LoopShaper.Core.Synthesis;
+using LoopShaper.Core.Validation;
+
+namespace LoopShaper.Cli;
+
+/// <summary>
+/// `export FILE --netlist [--loop] | --parts [--out FILE]`: the compensator's SPICE netlist, the averaged loop's, or
+/// the parts list CSV. A design given by parts is exported as it is; a placement is synthesised first (as `synthesize`).
+/// </summary>
+internal static class ExportCommand
+{
+    public static Command Create(TextWriter output, TextWriter error)
+    {
+        var file = new Argument<string>("file") { Description = "Design file (docs/design-file.md)." };
+        var netlist = new Option<bool>("--netlist") { Description = "Write the SPICE3 netlist of the compensator network (AC analysis, ngspice -b)." };
+        var loop = new Option<bool>("--loop") { Description = "With --netlist: the averaged small-signal loop of the buck instead, loop gain v(t)." };
+        var parts = new Option<bool>("--parts") { Description = "Write the parts list as CSV: designator, value, unit, display, series, tolerance, role." };
+        var outFile = new Option<string?>("--out", "-o") { Description = "Write to this file instead of the standard output." };
+        var synthesis = new SynthesisCommandLine();
+        var command = new Command("export", "Export the compensator: its SPICE netlist (--netlist), the averaged loop's (--netlist --loop) or the parts list CSV (--parts). A placement is synthesised into standard parts first. Exit code 0 when written, 2 for invalid input.")
+        {
+            file, netlist, loop, parts, outFile,
+        };
+        synthesis.AddTo(command);
+        command.SetAction(parse =>
+        {
+            string path = parse.GetValue(file)!;
+            bool wantNetlist = parse.GetValue(netlist), wantParts = parse.GetValue(parts), wantLoop = parse.GetValue(loop);
+            if (wantNetlist == wantParts)
+            {
+                error.WriteLine("error: export needs exactly one of --netlist and --parts.");
+                return ExitCodes.InvalidInput;
+            }
+
+            if (wantLoop && !wantNetlist)
+            {
+                error.WriteLine("error: --loop: goes with --netlist (the averaged loop's netlist), not with --parts.");
+                return ExitCodes.InvalidInput;
+            }
+
+            if (DesignLoader.Load(path, error) is not { } design || !synthesis.TryOptions(parse, design, error, out var options))
+            {
+                return ExitCodes.InvalidInput;
+            }
+
+            if (wantLoop && design.Plant is not BuckPlant)
+            {
+                error.WriteLine($"{path}: error: $.plant.model: the averaged-loop netlist is written for the buck power stage; a custom plant has no circuit to export (use --netlist without --loop).");
+                return ExitCodes.InvalidInput;
+            }
+
+            OpAmpNetwork network;
+            NetworkSynthesis? synthesised = null;
+            if (design.Compensator is OpAmpNetwork given)
+            {
+                network = given;
+            }
+            else if (DesignSynthesizer.TrySynthesize(design, options, out var result, out var issues))
+            {
+                synthesised = result!.Synthesis;
+                network = synthesised.ChosenNetwork;
+                design = result.BuiltDesign;
+            }
+            else
+            {
+                DesignLoader.ReportAll(error, path, issues.Where(i => i.Severity == Severity.Error));
+                return ExitCodes.InvalidInput;
+            }
+
+            string text = wantParts
+                ? synthesised is not null ? PartsListCsv.Write(synthesised) : PartsListCsv.Write(NetworkPartsList.Of(network, options))
+                : wantLoop ? SpiceNetlist.AveragedLoop(design, network) : SpiceNetlist.Compensator(network, design.Name);
+            return DesignLoader.Emit(text, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
+        });
+        return command;
+    }
+}
