@@ -1,0 +1,211 @@
+using System.Numerics;
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Design;
+using LoopShaper.Core.Exports;
+using LoopShaper.Core.PlantModels;
+using LoopShaper.Core.Synthesis;
+using LoopShaper.Core.TransferFunctions;
+using LoopShaper.Synthesis.Tests;
+
+namespace LoopShaper.Cli.Tests;
+
+/// <summary>
+/// `export` in-process on the committed examples: the parts CSV parsed back, and the netlists run live by ngspice
+/// (Debian package ngspice; the test fails when it is missing) against the core's responses.
+/// </summary>
+public class ExportCommandTests
+{
+    // Tolerances of issue 5: 0.01 dB and 0.05 deg; the netlist's 1e9 V/V amplifier accounts for less than 1e-4 dB.
+    private const double MagnitudeToleranceDb = 0.01;
+    private const double PhaseToleranceDeg = 0.05;
+
+    [Theory]
+    [MemberData(nameof(Placements))]
+    public async Task Parts_csv_of_a_placement_parses_back_to_the_values_synthesize_prints(string example)
+    {
+        using var printed = await SynthesizeCommandTests.Json("synthesize", RepoFiles.Example(example));
+        var expected = SynthesizeCommandTests.Parts(printed);
+        var run = await CliRun.Of("export", RepoFiles.Example(example), "--parts");
+        Assert.Equal(0, run.ExitCode);
+        Assert.Equal(string.Empty, run.Error);
+        Assert.StartsWith(PartsListCsv.Header + "\n", run.Output, StringComparison.Ordinal);
+        var entries = PartsListCsv.Parse(run.Output);
+        Assert.Equal(expected.Keys, entries.Select(e => e.Designator));
+        foreach (var e in entries)
+        {
+            var p = expected[e.Designator];
+            Assert.Equal(p.Chosen, e.Value);
+            Assert.Equal(p.Series, e.Series.ToString());
+            Assert.Equal(p.TolerancePct, e.TolerancePct);
+            Assert.Equal(e.Designator.StartsWith('R') ? PartKind.Resistor : PartKind.Capacitor, e.Kind);
+            Assert.False(string.IsNullOrEmpty(e.Role));
+        }
+    }
+
+    [Fact]
+    public async Task Parts_csv_of_a_network_lists_its_own_values_with_the_section_tolerances()
+    {
+        string example = RepoFiles.Example("core-rail-12v-to-1v0.json");
+        var n = (OpAmpNetwork)DesignFile.Read(File.ReadAllText(example)).Design!.Compensator;
+        var run = await CliRun.Of("export", example, "--parts");
+        Assert.Equal(0, run.ExitCode);
+        var e = PartsListCsv.Parse(run.Output).ToDictionary(x => x.Designator);
+        Assert.Equal(["R1", "R2", "C1", "C2", "R3", "C3", "R4"], e.Keys);
+        Assert.Equal(n.R1Ohm, e["R1"].Value);
+        Assert.Equal(n.R2Ohm, e["R2"].Value);
+        Assert.Equal(n.R3Ohm, e["R3"].Value);
+        Assert.Equal(n.RBottomOhm, e["R4"].Value);
+        Assert.Equal(n.C1F, e["C1"].Value);
+        Assert.Equal(n.C2F, e["C2"].Value);
+        Assert.Equal(n.C3F, e["C3"].Value);
+        // The example's synthesis section: E24 resistors at 1 %, E12 capacitors at 5 %, C1 and C3 at 10 %.
+        Assert.All(e.Values.Where(x => x.Kind == PartKind.Resistor), x => Assert.Equal((ESeries.E24, 1.0), (x.Series!.Value, x.TolerancePct)));
+        Assert.Equal((ESeries.E12, 10.0), (e["C1"].Series!.Value, e["C1"].TolerancePct));
+        Assert.Equal((ESeries.E12, 5.0), (e["C2"].Series!.Value, e["C2"].TolerancePct));
+        Assert.Equal((ESeries.E12, 10.0), (e["C3"].Series!.Value, e["C3"].TolerancePct));
+
+        // 5.6 kOhm is in E24 and not in E96 (IEC 60063): asked for E96, the list names the series that holds it.
+        var e96 = PartsListCsv.Parse((await CliRun.Of("export", example, "--parts", "--series", "E96")).Output).ToDictionary(x => x.Designator);
+        Assert.Equal(ESeries.E24, e96["R2"].Series);
+        Assert.Equal(ESeries.E96, e96["R1"].Series);
+    }
+
+    [Theory]
+    [MemberData(nameof(Examples))]
+    public async Task Compensator_netlist_runs_in_ngspice_with_the_core_response(string example)
+    {
+        var run = await CliRun.Of("export", RepoFiles.Example(example), "--netlist");
+        Assert.Equal(0, run.ExitCode);
+        Assert.Equal(string.Empty, run.Error);
+        Assert.StartsWith("* LoopShaper compensator netlist", run.Output, StringComparison.Ordinal);
+        var design = DesignFile.Read(File.ReadAllText(RepoFiles.Example(example))).Design!;
+        Assert.Contains($"* design: {design.Name}", run.Output, StringComparison.Ordinal);
+
+        var network = await ExportedNetwork(example, design);
+        var points = Ngspice.RunAc(run.Output, "v(gc)");
+        Assert.Equal(241, points.Count);
+        Compare(network.TransferFunction(), points, example);
+    }
+
+    [Theory]
+    [MemberData(nameof(Bucks))]
+    public async Task Averaged_loop_netlist_runs_in_ngspice_with_the_core_loop_gain(string example)
+    {
+        var run = await CliRun.Of("export", RepoFiles.Example(example), "--netlist", "--loop");
+        Assert.Equal(0, run.ExitCode);
+        Assert.StartsWith("* LoopShaper averaged small-signal loop", run.Output, StringComparison.Ordinal);
+        var design = DesignFile.Read(File.ReadAllText(RepoFiles.Example(example))).Design!;
+        var built = DesignSynthesizer.WithParts(design, await ExportedNetwork(example, design));
+        var points = Ngspice.RunAc(run.Output, "v(t)");
+        // The loop gain of the design built with the exported parts (Erickson & Maksimovic 2nd ed., sec. 8.2 and 7.2).
+        Compare(DesignAnalyzer.BuildLoop(built).Loop.LoopGain, points, example);
+    }
+
+    [Fact]
+    public async Task Series_options_reach_the_exported_parts()
+    {
+        string example = RepoFiles.Example("usb-5v-to-3v3-diode.json");
+        var e24 = PartsListCsv.Parse((await CliRun.Of("export", example, "--parts", "--series", "E24", "--no-search")).Output);
+        var e96 = PartsListCsv.Parse((await CliRun.Of("export", example, "--parts", "--no-search")).Output);
+        Assert.All(e24.Where(p => p.Kind == PartKind.Resistor), p => Assert.True(StandardValues.IsPreferred(p.Value, ESeries.E24) && p.Series == ESeries.E24, p.ToString()));
+        Assert.All(e96.Where(p => p.Kind == PartKind.Resistor), p => Assert.Equal(ESeries.E96, p.Series));
+        Assert.NotEqual(e24.Where(p => p.Kind == PartKind.Resistor).Select(p => p.Value), e96.Where(p => p.Kind == PartKind.Resistor).Select(p => p.Value));
+    }
+
+    [Fact]
+    public async Task Output_goes_to_the_out_file()
+    {
+        using var file = new TempFile("comp.cir");
+        var run = await CliRun.Of("export", RepoFiles.Example("core-rail-12v-to-1v0.json"), "--netlist", "--out", file.Path);
+        Assert.Equal(0, run.ExitCode);
+        Assert.Equal(string.Empty, run.Output);
+        Assert.EndsWith(".end\n", File.ReadAllText(file.Path), StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData(new[] { "core-rail-12v-to-1v0.json" }, "error: export needs exactly one of --netlist and --parts.")]
+    [InlineData(new[] { "core-rail-12v-to-1v0.json", "--netlist", "--parts" }, "error: export needs exactly one of --netlist and --parts.")]
+    [InlineData(new[] { "core-rail-12v-to-1v0.json", "--parts", "--loop" }, "error: --loop: goes with --netlist (the averaged loop's netlist), not with --parts.")]
+    [InlineData(new[] { "core-rail-12v-to-1v0.json", "--parts", "--cap-series", "E48" }, "error: --cap-series: E48 is not offered for capacitors: allowed E6, E12, E24.")]
+    public async Task Bad_requests_are_exit_code_2(string[] args, string message)
+    {
+        var run = await CliRun.Of(["export", RepoFiles.Example(args[0]), .. args[1..]]);
+        Assert.Equal(2, run.ExitCode);
+        Assert.Equal(string.Empty, run.Output);
+        Assert.Equal(message, run.Error.TrimEnd('\n'));
+    }
+
+    [Fact]
+    public async Task A_custom_plant_has_no_averaged_loop_netlist()
+    {
+        string example = RepoFiles.Example("custom-boost-led-driver-rhp-zero.json");
+        var run = await CliRun.Of("export", example, "--netlist", "--loop");
+        Assert.Equal(2, run.ExitCode);
+        Assert.StartsWith($"{example}: error: $.plant.model: the averaged-loop netlist is written for the buck power stage", run.Error, StringComparison.Ordinal);
+    }
+
+    public static TheoryData<string> Examples() => RepoFiles.Examples();
+
+    public static TheoryData<string> Placements()
+    {
+        var data = new TheoryData<string>();
+        foreach (string e in Directory.GetFiles(RepoFiles.ExamplesDir, "*.json").Select(f => Path.GetFileName(f)).Order(StringComparer.Ordinal))
+        {
+            if (DesignFile.Read(File.ReadAllText(RepoFiles.Example(e))).Design!.Compensator is CompensatorPlacement)
+            {
+                data.Add(e);
+            }
+        }
+
+        return data;
+    }
+
+    public static TheoryData<string> Bucks()
+    {
+        var data = new TheoryData<string>();
+        foreach (string e in Directory.GetFiles(RepoFiles.ExamplesDir, "*.json").Select(f => Path.GetFileName(f)).Order(StringComparer.Ordinal))
+        {
+            if (DesignFile.Read(File.ReadAllText(RepoFiles.Example(e))).Design!.Plant is BuckPlant)
+            {
+                data.Add(e);
+            }
+        }
+
+        return data;
+    }
+
+    /// <summary>The network the export writes: the design's own, or the parts `synthesize` chooses.</summary>
+    private static async Task<OpAmpNetwork> ExportedNetwork(string example, LoopDesign design)
+    {
+        if (design.Compensator is OpAmpNetwork n)
+        {
+            return n;
+        }
+
+        using var doc = await SynthesizeCommandTests.Json("synthesize", RepoFiles.Example(example));
+        return SynthesizeCommandTests.NetworkOf(doc.RootElement, Enum.Parse<CompensatorType>(doc.RootElement.GetProperty("compensatorType").GetString()!, ignoreCase: true));
+    }
+
+    private static void Compare(TransferFunction h, List<(double FrequencyHz, Complex Value)> points, string name)
+    {
+        // ngspice's phase is a principal value, unwrapped point by point from 10 Hz; ours is continuous by construction.
+        double? previous = null;
+        foreach (var (f, v) in points)
+        {
+            double refDb = 20 * Math.Log10(v.Magnitude);
+            double refDeg = v.Phase * 180 / Math.PI;
+            if (previous is double p)
+            {
+                refDeg -= 360 * Math.Round((refDeg - p) / 360);
+            }
+            else
+            {
+                refDeg -= 360 * Math.Round((refDeg - h.PhaseDeg(f)) / 360);
+            }
+
+            previous = refDeg;
+            Assert.True(Math.Abs(h.MagnitudeDb(f) - refDb) <= MagnitudeToleranceDb, $"{name} at {f:G6} Hz: ours {h.MagnitudeDb(f):F5} dB, ngspice {refDb:F5} dB");
+            Assert.True(Math.Abs(h.PhaseDeg(f) - refDeg) <= PhaseToleranceDeg, $"{name} at {f:G6} Hz: ours {h.PhaseDeg(f):F4} deg, ngspice {refDeg:F4} deg");
+        }
+    }
+}
