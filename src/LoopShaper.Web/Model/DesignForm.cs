@@ -1,6 +1,7 @@
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
+using LoopShaper.Core.Synthesis;
 
 namespace LoopShaper.Web.Model;
 
@@ -17,6 +18,9 @@ public sealed class DesignForm
     private const string Comp = "compensator";
     private const string Run = "analysis";
     private const string Crit = "criteria";
+    private const string Parts = "synthesis";
+
+    private readonly SynthesisSettings? _synthesis;
 
     private DesignForm(LoopDesign design)
     {
@@ -94,6 +98,14 @@ public sealed class DesignForm
         MaxLoadStepDeviation = new($"{Crit}.maxLoadStepDeviationV", "Load-step deviation, at most", "V", k.MaxLoadStepDeviationV, optional: true);
         MinRippleFraction = new($"{Crit}.minRippleFraction", "Ripple current, at least", string.Empty, k.MinRippleFraction, "× Imax");
         MaxRippleFraction = new($"{Crit}.maxRippleFraction", "Ripple current, at most", string.Empty, k.MaxRippleFraction, "× Imax");
+
+        // The synthesis section: the parts panel edits the series, R1 and the search; the rest travels unchanged.
+        _synthesis = design.Synthesis;
+        var sx = design.Synthesis ?? new SynthesisSettings();
+        ResistorSeries = sx.ResistorSeries;
+        CapacitorSeries = sx.CapacitorSeries;
+        SearchNeighbours = sx.SearchNeighbours;
+        PartsR1 = new($"{Parts}.r1Ohm", "R1 (empty: divider top)", "Ohm", sx.R1Ohm, "Ω", optional: true);
     }
 
     /// <summary>Short name of the design.</summary>
@@ -270,6 +282,18 @@ public sealed class DesignForm
     /// <summary>Criterion: highest ripple fraction.</summary>
     public FieldState MaxRippleFraction { get; }
 
+    /// <summary>Series the synthesised resistors snap to.</summary>
+    public ESeries ResistorSeries { get; set; }
+
+    /// <summary>Series the synthesised capacitors snap to.</summary>
+    public ESeries CapacitorSeries { get; set; }
+
+    /// <summary>Search the neighbouring preferred values when choosing parts.</summary>
+    public bool SearchNeighbours { get; set; }
+
+    /// <summary>R1 the parts are computed from; empty takes the divider's top resistor.</summary>
+    public FieldState PartsR1 { get; }
+
     /// <summary>The compensator zeros and poles that the current type uses, in order z1, z2, p1, p2.</summary>
     public IEnumerable<FieldState> PlacementFrequencies => CompensatorType switch
     {
@@ -318,6 +342,7 @@ public sealed class DesignForm
 
             list.AddRange([StartFrequency, StopFrequency, Points, LoadStep, LoadStepSlew, ReferenceStep, StepDuration, StepSamples]);
             list.AddRange([MinPhaseMargin, MinGainMargin, MaxCrossoverFraction, MinCrossover, MaxOvershoot, MaxLoadStepDeviation, MinRippleFraction, MaxRippleFraction]);
+            list.Add(PartsR1);
             return list;
         }
     }
@@ -421,7 +446,19 @@ public sealed class DesignForm
         var criteria = new DesignCriteria(
             V(MinPhaseMargin), V(MinGainMargin), V(MaxCrossoverFraction), V(MinCrossover),
             MaxOvershoot.Value, MaxLoadStepDeviation.Value, V(MinRippleFraction), V(MaxRippleFraction));
-        return new LoopDesign(Name, Description, plant, compensator, analysis, criteria);
+        return new LoopDesign(Name, Description, plant, compensator, analysis, criteria, BuildSynthesis());
+    }
+
+    /// <summary>The synthesis section; none when the design had none and the parts settings are still the defaults.</summary>
+    private SynthesisSettings? BuildSynthesis()
+    {
+        var d = new SynthesisSettings();
+        if (_synthesis is null && ResistorSeries == d.ResistorSeries && CapacitorSeries == d.CapacitorSeries && SearchNeighbours == d.SearchNeighbours && PartsR1.Value is null)
+        {
+            return null;
+        }
+
+        return (_synthesis ?? d) with { ResistorSeries = ResistorSeries, CapacitorSeries = CapacitorSeries, SearchNeighbours = SearchNeighbours, R1Ohm = PartsR1.Value };
     }
 
     private static double V(FieldState f) => f.Value ?? double.NaN;

@@ -24,6 +24,9 @@ public sealed partial class Designer : IDisposable
     /// <summary>The open design (created on initialisation).</summary>
     public DesignWorkspace Workspace { get; private set; } = default!;
 
+    /// <summary>The parts of the open design (created with the workspace).</summary>
+    public PartsWorkspace Parts { get; private set; } = default!;
+
     [Inject]
     private DemoDesign Demo { get; set; } = default!;
 
@@ -44,14 +47,19 @@ public sealed partial class Designer : IDisposable
     [
         "plant", "plant.powerStage", "plant.powerStage.inputVoltageV", "plant.powerStage.loadCurrentA", "plant.powerStage.inductor",
         "plant.powerStage.rectifier", "plant.powerStage.outputCapacitors", "plant.control", "plant.feedback", "compensator", "compensator.gain",
-        "compensator.gain.kind", "analysis", "criteria",
+        "compensator.gain.kind", "analysis", "criteria", "synthesis",
     ];
 
     private IReadOnlyList<ValidationIssue> OtherFindings
         => [.. Issues.Except(Form.ActiveFields.Select(f => f.Path).Concat(GroupPaths))];
 
     /// <inheritdoc />
-    public void Dispose() => Workspace.Changed -= OnWorkspaceChanged;
+    public void Dispose()
+    {
+        Workspace.Changed -= OnWorkspaceChanged;
+        Parts.Changed -= OnWorkspaceChanged;
+        Parts.Dispose();
+    }
 
     /// <inheritdoc />
     protected override async Task OnInitializedAsync()
@@ -84,6 +92,8 @@ public sealed partial class Designer : IDisposable
 
         Workspace = new DesignWorkspace(design, Logger);
         Workspace.Changed += OnWorkspaceChanged;
+        Parts = new PartsWorkspace(Workspace, Logger);
+        Parts.Changed += OnWorkspaceChanged;
         await Workspace.RecomputeAsync();
     }
 
