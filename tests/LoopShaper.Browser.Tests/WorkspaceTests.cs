@@ -139,6 +139,30 @@ public sealed class WorkspaceTests(WorkspaceFixture fixture) : IAsyncLifetime
         AssertNoConsoleErrors();
     }
 
+    [Fact]
+    public async Task Choosing_parts_shows_ideal_against_standard_values_and_downloads_the_parts_list()
+    {
+        var page = await OpenAsync(_browser, fixture.App.BaseUri.ToString());
+        await page.ClickAsync("[data-choose-parts]");
+        await page.WaitForSelectorAsync("[data-parts-panel=ready]");
+        // The demo's synthesis section asks for E24 resistors; E96 moves R2 from 5.60 kOhm to the nearest E96 value.
+        Assert.Equal("E24", await page.InnerTextAsync("[data-part='R2'] [data-cell='series']"));
+        await page.SelectOptionAsync("[data-resistor-series]", "E96");
+        await page.WaitForFunctionAsync("() => document.querySelector(\"[data-part='R2'] [data-cell='series']\")?.textContent === 'E96'");
+        Assert.Equal("5.62 kOhm", await page.InnerTextAsync("[data-part='R2'] [data-cell='snapped']"));
+        var card = page.Locator("section.card", new PageLocatorOptions { Has = page.Locator("[data-parts-panel]") });
+        await card.ScrollIntoViewIfNeededAsync();
+        await page.WaitForTimeoutAsync(200);
+        await card.ScreenshotAsync(new LocatorScreenshotOptions { Path = Path.Combine(ShotDir, "06-parts.png") });
+
+        var download = await page.RunAndWaitForDownloadAsync(() => page.ClickAsync("[data-download-parts]"));
+        string csv = await File.ReadAllTextAsync(await download.PathAsync());
+        Assert.StartsWith("designator,value,unit,display,series,tolerance_pct,role\n", csv, StringComparison.Ordinal);
+        Assert.Contains("\nR2,5620,Ohm,5.62 kOhm,E96,1,", csv, StringComparison.Ordinal);
+        Assert.Equal("processor-core-rail-12-v-to-1-0-v-parts.csv", download.SuggestedFilename);
+        AssertNoConsoleErrors();
+    }
+
     private async Task<IPage> OpenAsync(Chromium browser, string url)
     {
         var page = await browser.Context.NewPageAsync();
