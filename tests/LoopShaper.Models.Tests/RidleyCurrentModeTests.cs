@@ -1,6 +1,5 @@
 using System.Numerics;
 using LoopShaper.Core.PlantModels;
-using LoopShaper.Core.TransferFunctions;
 
 namespace LoopShaper.Models.Tests;
 
@@ -196,10 +195,10 @@ public class RidleyCurrentModeTests
     [InlineData(120e-9)]
     public void Model_equals_the_loop_closed_point_by_point(double delayS)
     {
-        // Cross-method: the model's polynomial algebra against the loop d = Fm e^(-s Td) (vc - Ri He iL + kf vg + kr v)
-        // closed by complex arithmetic at each frequency around the voltage-mode Gvd, Gvg, Zout and a Gid evaluated
-        // directly from the capacitor branches (Gid = Veff Y / (1 + Zs Y), Gig = D Y / (1 + Zs Y), Gii = 1 / (1 + Zs Y)).
-        // The delay enters the closed current loop as the model's Pade approximation, evaluated here from its own roots.
+        // Cross-method: the model's polynomial algebra against the loop d = Fm (vc - Ri He iL + kf vg + kr v) closed by
+        // complex arithmetic at each frequency around the voltage-mode Gvd, Gvg, Zout and a Gid evaluated directly from
+        // the capacitor branches (Gid = Veff Y / (1 + Zs Y), Gig = D Y / (1 + Zs Y), Gii = 1 / (1 + Zs Y)). A modulator
+        // delay multiplies vout / vc by the exact e^(-s Td) and leaves the current loop alone.
         var stage = TestStages.PointOfLoad();
         var at = new OperatingCondition(12.0, 3.0);
         var op = BuckOperatingPoint.Solve(stage, at);
@@ -207,8 +206,7 @@ public class RidleyCurrentModeTests
         var pcm = PeakCurrentModeBuck.TransferFunctions(stage, op, control);
         var vmode = VoltageModeBuck.TransferFunctions(stage, op);
         var f = pcm.CurrentMode!;
-        var pade = f.PadeOrder is int n ? PadeApproximation.Of(delayS, n) : TransferFunction.Constant(1.0);
-        Assert.Equal(delayS > 0, f.PadeOrder is not null);
+        Assert.Equal(delayS, pcm.ControlToOutput.DelayS);
 
         double ts = 1 / stage.SwitchingFrequencyHz, wn = Math.PI / ts, l = stage.Inductor.InductanceH;
         foreach (double hz in new[] { 10.0, 300.0, 3e3, 20e3, 80e3, 200e3, 249e3, 400e3, 2e6 })
@@ -223,12 +221,12 @@ public class RidleyCurrentModeTests
             var gvg = vmode.LineToOutput.EvaluateHz(hz);
             var zo = vmode.OutputImpedance.EvaluateHz(hz);
             var he = 1 + (s / (wn * (-2 / Math.PI))) + (s * s / (wn * wn));
-            var fm = f.ModulatorGainPerV * pade.EvaluateHz(hz);
+            var fm = new Complex(f.ModulatorGainPerV, 0);
             var delta = 1 + (fm * ((f.SenseGainOhm * he * gid) - (f.OutputFeedbackGainKr * gvd)));
-            var gvc = fm * gvd / delta;
+            var gvc = fm * gvd / delta * Complex.Exp(-s * delayS);
             var line = gvg + (gvd * fm * (f.FeedforwardGainKf + (f.OutputFeedbackGainKr * gvg) - (f.SenseGainOhm * he * gig)) / delta);
             var zout = zo + (gvd * fm * ((f.SenseGainOhm * he * gii) + (f.OutputFeedbackGainKr * zo)) / delta);
-            var ti = f.ModulatorGainPerV * f.SenseGainOhm * he * gid * Complex.Exp(-s * delayS);
+            var ti = f.ModulatorGainPerV * f.SenseGainOhm * he * gid;
 
             AssertSame(gvc, pcm.ControlToOutput.EvaluateHz(hz), $"Gvc at {hz} Hz");
             AssertSame(line, pcm.LineToOutput.EvaluateHz(hz), $"Gvg at {hz} Hz");

@@ -95,8 +95,9 @@ public static class DesignAnalyzer
                         break;
                     case PeakCurrentModeControl pcm:
                         var cm = PeakCurrentModeBuck.TransferFunctions(stage, op, pcm);
-                        modulator = TransferFunction.Constant(1.0);
-                        plant = cm.ControlToOutput;
+                        // The modulator delay is kept as the modulator block, the rest of Fm is inside Gvc.
+                        modulator = TransferFunction.Delay(cm.ControlToOutput.DelayS);
+                        plant = cm.ControlToOutput.WithoutDelay();
                         gvg = cm.LineToOutput;
                         zout = cm.OutputImpedance;
                         ti = cm.CurrentLoopGain;

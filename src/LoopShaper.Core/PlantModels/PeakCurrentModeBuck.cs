@@ -8,15 +8,18 @@ namespace LoopShaper.Core.PlantModels;
 
 /// <summary>
 /// Peak current-mode buck after R. B. Ridley, "A New, Continuous-Time Model for Current-Mode Control", IEEE Trans.
-/// Power Electronics 6(2), 1991. The modulator sets d = Fm e^(-s Td) (vc - Ri He(s) iL + kf vg + kr v) with
+/// Power Electronics 6(2), 1991. The modulator sets d = Fm (vc - Ri He(s) iL + kf vg + kr v) with
 /// Fm = 1 / (mc Sn Ts), mc = 1 + Se / Sn, the sampling gain He(s) = 1 + s / (wn Qz) + s^2 / wn^2, wn = pi / Ts,
 /// Qz = -2 / pi, and for the buck kf = -(D Ts Ri / L)(1 - D/2), kr = Ts Ri / (2 L) (Ridley 1991, table of feedforward
 /// gains, from memory; at DC they reduce to the more accurate model of Erickson and Maksimovic, 2nd ed., sec. 12.3).
 /// With the averaged power stage L s iL = Ad d + Ag vg - Reff iL - Gv v, iL - iload = Y v (the same polynomials as the
-/// voltage-mode model, <see cref="VoltageModeBuck"/>), and P = Dp Den + Fm Ad Np (Ri He Ny - kr Dy) (Np / Dp the Pade
-/// approximation of the delay, 1 without one), exactly (our algebra):
-/// Gvc = Fm Ad Np Dy / P, Gvg = Dy (Ag Dp + Fm Ad kf Np) / P, Zout = Dy (Zs Dp + Fm Ad Ri He Np) / P,
-/// and the inner current-loop gain Ti = Fm Ri He Gid e^(-s Td), Gid = Ad Ny / Den.
+/// voltage-mode model, <see cref="VoltageModeBuck"/>), and P = Den + Fm Ad (Ri He Ny - kr Dy), exactly (our algebra):
+/// Gvc = Fm Ad Dy / P, Gvg = Dy (Ag + Fm Ad kf) / P, Zout = Dy (Zs + Fm Ad Ri He) / P,
+/// and the inner current-loop gain Ti = Fm Ri He Gid, Gid = Ad Ny / Den.
+/// A constant comparator or driver delay Td shifts the decision and the turn-off alike, so the period-to-period map of
+/// a current perturbation, alpha = -(Sf - Se) / (Sn + Se) (Erickson and Maksimovic, 2nd ed., sec. 12.1), does not change:
+/// the delay is kept out of the current loop and delays the control voltage, vout / vc = Gvc e^(-s Td) (our reasoning;
+/// inside Ti, with the improper He(s), it would put spurious right-half-plane poles above fs).
 /// In DCM the inductor current starts every period at zero, so d = vc / ((Sn + Se) Ts): no current feedback, no
 /// sampling pole; kf = -D Ri Ts / L and kr = D Ri Ts / L (our linearisation) on the DCM model of <see cref="DcmBuck"/>.
 /// </summary>
@@ -69,34 +72,21 @@ public static class PeakCurrentModeBuck
         var currentTerm = dcm ? new Polynomial([0.0]) : he.Multiply(parts.Ny).Scale(ri);
 
         double td = control.TotalDelayS(fs);
-        int? pade = td > 0 ? PadeApproximation.SuggestOrder(td, 2 * Math.PI * fs) : null;
-        var (np, dp) = (Polynomial.One, Polynomial.One);
-        if (pade is int n)
-        {
-            var (k, num, den) = PadeApproximation.Of(td, n).ScaledParts(w);
-            (np, dp) = (num.Scale(k), den);
-        }
-
-        var p = dp.Multiply(parts.Den).Add(np.Multiply(currentTerm.Add(parts.Dy.Scale(-kr))).Scale(fm * ad));
-        var gvc = TransferFunction.FromScaledPolynomials(fm * ad, np.Multiply(parts.Dy), p, w, 0.0);
-        var gvg = TransferFunction.FromScaledPolynomials(1.0, parts.Dy.Multiply(dp.Scale(model.LineGain).Add(np.Scale(fm * ad * kf))), p, w, 0.0);
-        var zoutNum = parts.Zs.Multiply(dp);
-        if (!dcm)
-        {
-            zoutNum = zoutNum.Add(np.Multiply(he).Scale(fm * ad * ri));
-        }
-
+        var p = parts.Den.Add(currentTerm.Add(parts.Dy.Scale(-kr)).Scale(fm * ad));
+        var gvc = TransferFunction.FromScaledPolynomials(fm * ad, parts.Dy, p, w, 0.0);
+        var gvg = TransferFunction.FromScaledPolynomials(1.0, parts.Dy.Scale(model.LineGain + (fm * ad * kf)), p, w, 0.0);
+        var zoutNum = dcm ? parts.Zs : parts.Zs.Add(he.Scale(fm * ad * ri));
         var zout = TransferFunction.FromScaledPolynomials(1.0, parts.Dy.Multiply(zoutNum), p, w, 0.0);
-        TransferFunction? ti = dcm ? null : TransferFunction.FromScaledPolynomials(fm * ri * ad, he.Multiply(parts.Ny), parts.Den, w, 0.0).WithDelay(td);
+        TransferFunction? ti = dcm ? null : TransferFunction.FromScaledPolynomials(fm * ri * ad, he.Multiply(parts.Ny), parts.Den, w, 0.0);
 
-        var figures = new PeakCurrentModeFigures(d, dcm, ri, sn, sf, se, mc, fm, kf, kr, wn / (2 * Math.PI), damping, qp, mcUnity, seUnity, td, pade);
+        var figures = new PeakCurrentModeFigures(d, dcm, ri, sn, sf, se, mc, fm, kf, kr, wn / (2 * Math.PI), damping, qp, mcUnity, seUnity, td);
         var steps = Derivations(stage, op, control, figures, gvc).ToList();
         if (!dcm)
         {
             steps.Insert(0, Ccm(stage, op));
         }
 
-        return new BuckTransferFunctions(gvc, gvg, zout, [.. steps], dcm ? SmallSignalModel.PeakCurrentModeDiscontinuous : SmallSignalModel.PeakCurrentModeContinuous, ti, figures);
+        return new BuckTransferFunctions(gvc.WithDelay(td), gvg, zout, [.. steps], dcm ? SmallSignalModel.PeakCurrentModeDiscontinuous : SmallSignalModel.PeakCurrentModeContinuous, ti, figures);
     }
 
     private static Derivation Ccm(BuckPowerStage stage, OperatingPoint op)
@@ -147,10 +137,10 @@ public static class PeakCurrentModeBuck
             }
         }
 
-        if (f.PadeOrder is int n)
+        if (f.DelayS > 0)
         {
-            yield return new("Modulator delay in the current loop", "e^(-s Td) by a Pade approximation of order n in the closed current loop (exact in Ti)",
-                $"Td = {Format(f.DelayS, "s")}", string.Create(inv, $"order {n}"), "Pade approximation; order n = ceil(2 pi fs Td) + 2 (our rule, no source)");
+            yield return new("Modulator delay", "vout / vc = Gvc e^(-s Td); the current loop's period-to-period map is unchanged by a constant delay",
+                $"Td = {Format(f.DelayS, "s")}", Format(f.DelayS, "s"), "alpha = -(Sf - Se) / (Sn + Se), Erickson & Maksimovic, 2nd ed., sec. 12.1; our reasoning");
         }
 
         yield return new("Poles and zeros of Gvc (exact)", "roots of P(s), see the model", gvc.ToString(), $"{gvc.Poles.Length} poles, {gvc.Zeros.Length} zeros", Ridley + "; our algebra");

@@ -18,8 +18,7 @@ namespace LoopShaper.Core.PlantModels;
 /// <param name="Qp">Qp = 1 / (pi (mc D' - 0.5)); null in DCM or where mc D' - 0.5 &lt;= 0 (the current loop is unstable).</param>
 /// <param name="SuggestedMcForUnityQp">mc that gives Qp = 1: (1/pi + 0.5) / D' (common practice: Qp near 1).</param>
 /// <param name="SuggestedRampForUnityQpVPerS">The Se that gives Qp = 1, (mc - 1) Sn, V/s; zero when no ramp is needed (Qp &lt; 1 already without one).</param>
-/// <param name="DelayS">Modulator delay inside the current loop, s.</param>
-/// <param name="PadeOrder">Order of the Pade approximation of that delay in the closed current loop; null without a delay.</param>
+/// <param name="DelayS">Modulator delay, s: it delays the control voltage (vout / vc = Gvc e^(-s Td)), not the current loop.</param>
 public sealed record PeakCurrentModeFigures(
     double DutyCycle,
     bool IsDiscontinuous,
@@ -36,8 +35,7 @@ public sealed record PeakCurrentModeFigures(
     double? Qp,
     double SuggestedMcForUnityQp,
     double SuggestedRampForUnityQpVPerS,
-    double DelayS,
-    int? PadeOrder)
+    double DelayS)
 {
     /// <summary>True in CCM when mc D' - 0.5 &lt;= 0: the sampled current loop is unstable and the converter oscillates at half the switching frequency.</summary>
     public bool IsSubharmonicallyUnstable => !IsDiscontinuous && DampingTerm <= 0;
