@@ -9,6 +9,22 @@ namespace LoopShaper.Core.Analysis;
 /// <param name="Points">Number of points of a plotted response.</param>
 public sealed record FrequencyGrid(double StartHz, double StopHz, int Points = 1000)
 {
+    /// <summary>
+    /// An automatic range for functions whose interesting frequencies are unknown: from a thirtieth of the lowest
+    /// non-zero pole or zero to thirty times the highest, limited to 1 mHz .. 10 GHz (our rule, no source).
+    /// </summary>
+    public static FrequencyGrid Automatic(IEnumerable<TransferFunction> functions, int points = 1000)
+    {
+        var hz = functions.SelectMany(t => t.Zeros.Concat(t.Poles)).Select(r => r.Magnitude / (2 * Math.PI)).Where(f => f > 0).ToList();
+        if (hz.Count == 0)
+        {
+            return new FrequencyGrid(1e-2, 1e4, points);
+        }
+
+        double lo = Math.Clamp(hz.Min() / 30, 1e-3, 1e9), hi = Math.Clamp(hz.Max() * 30, 1e-2, 1e10);
+        return new FrequencyGrid(lo, Math.Max(hi, lo * 100), points);
+    }
+
     /// <summary>Logarithmically spaced frequencies from StartHz to StopHz, both included.</summary>
     public ImmutableArray<double> LogSpaced()
     {

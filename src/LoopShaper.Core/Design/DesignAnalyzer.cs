@@ -156,7 +156,8 @@ public static class DesignAnalyzer
         var placement = Resolve(design.Compensator, loop.Plant);
         var t = loop.LoopGain;
         var margins = MarginAnalyzer.Analyze(t, a.StartHz, a.StopHz);
-        var grid = new FrequencyGrid(a.StartHz, a.StopHz, a.Points).LogSpaced();
+        // One grid for plant, compensator and loop, denser near their poles and zeros.
+        var grid = new FrequencyGrid(a.StartHz, a.StopHz, a.Points).Adaptive([loop.Plant, loop.Compensator]);
         double fc = margins.CrossoverHz ?? Math.Sqrt(a.StartHz * a.StopHz);
         int? pade = loop.PadeOrder(fc);
         double duration = a.StepDurationS ?? (20.0 / fc);

@@ -375,7 +375,8 @@ public sealed class TransferFunction
     private static Polynomial Rescale(Polynomial p, double w)
     {
         // p(w x): coefficient k times w^k.
-        return new Polynomial(p.Coefficients.Select((c, i) => c * Math.Pow(w, i)));
+        // In logarithms, so that c w^k stays finite when c and w^k alone would not (1e300 with w = 1e154).
+        return new Polynomial(p.Coefficients.Select((c, i) => c == 0.0 ? 0.0 : Math.Sign(c) * Math.Exp(Math.Log(Math.Abs(c)) + (i * Math.Log(w)))));
     }
 
     /// <summary>Moves near-origin roots into n, snaps near-axis roots onto the axis and pairs complex roots into exact conjugates.</summary>

@@ -26,7 +26,12 @@ public static class EngineeringFormat
 
         double mag = Math.Abs(value);
         int exp3 = (int)Math.Floor(Math.Log10(mag) / 3.0) * 3;
-        exp3 = Math.Clamp(exp3, -15, 12);
+        if (exp3 < -15 || exp3 > 12)
+        {
+            // Beyond the prefix table: scientific notation, never hundreds of digits.
+            return value.ToString("G" + significantDigits.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture) + sep + unit;
+        }
+
         double mant = value / Math.Pow(10, exp3);
         // Rounding may carry the mantissa to 1000.
         int digitsBefore = Math.Abs(mant) >= 100 ? 3 : Math.Abs(mant) >= 10 ? 2 : 1;

@@ -104,7 +104,11 @@ public static class DesignValidator
         if (vinOk && voutOk && loadOk && lOk && swOk && fsOk)
         {
             var op = BuckOperatingPoint.Solve(s, new OperatingCondition(s.InputVoltage.MinV, s.LoadCurrent.MaxA));
-            if (!(op.DutyCycle > 0) || op.DutyCycle > s.MaxDutyCycle || !double.IsFinite(op.DutyCycle))
+            if (!(op.DutyCycle > 0) || !double.IsFinite(op.DutyCycle))
+            {
+                c.Error($"{p}.outputVoltageV", $"{Format(s.OutputVoltageV, "V")} cannot be reached at the minimum input {Format(s.InputVoltage.MinV, "V")} and full load: the losses leave no valid duty cycle (0 to {s.MaxDutyCycle:F3}); check the resistances and the diode drop.");
+            }
+            else if (op.DutyCycle > s.MaxDutyCycle)
             {
                 c.Error($"{p}.outputVoltageV", $"{Format(s.OutputVoltageV, "V")} is not reachable at the minimum input {Format(s.InputVoltage.MinV, "V")} and full load: it needs a duty cycle of {op.DutyCycle:F3}, above the maximum {s.MaxDutyCycle:F3} (plant.powerStage.maxDutyCycle).");
             }
@@ -250,15 +254,28 @@ public static class DesignValidator
             }
             else if (ok)
             {
-                var tf = plant.TransferFunction();
-                if (!tf.IsProper)
+                try
                 {
-                    c.Error($"{p}.numerator", "has a higher degree than the denominator: a physical plant is proper.");
+                    var tf = plant.TransferFunction();
+                    if (!tf.IsProper)
+                    {
+                        c.Error($"{p}.numerator", "has a higher degree than the denominator: a physical plant is proper.");
+                    }
+                }
+                catch (ArgumentException ex)
+                {
+                    c.Error($"{p}.denominator", $"its roots could not be found ({ex.Message}); scale the coefficients to a narrower span.");
                 }
             }
         }
         else
         {
+            if (plant.Zeros.IsDefault || plant.Poles.IsDefault)
+            {
+                c.Error(plant.Zeros.IsDefault ? $"{p}.zeros" : $"{p}.poles", "must be a list of factors (empty for none).");
+                return;
+            }
+
             if (!double.IsFinite(plant.Gain) || plant.Gain == 0 || Math.Abs(plant.Gain) > 1e300)
             {
                 c.Error($"{p}.gain", "must be a finite, non-zero number.");

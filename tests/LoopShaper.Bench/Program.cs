@@ -1,0 +1,123 @@
+using System.Diagnostics;
+using System.Globalization;
+using System.Text.Json.Nodes;
+using LoopShaper.Core.Analysis;
+using LoopShaper.Core.Design;
+
+// Benchmarks of the core on the example designs (a plain harness that prints figures; speed targets live here,
+// not in timed tests). Usage: loopshaper-bench [--examples DIR] [--export FILE.json]
+string dir = ArgValue(args, "--examples") ?? FindExamples();
+string? export = ArgValue(args, "--export");
+var inv = CultureInfo.InvariantCulture;
+var rows = new JsonArray();
+Console.WriteLine($"LoopShaper core benchmark, {Environment.ProcessorCount} cores, .NET {Environment.Version}");
+Console.WriteLine($"{"design",-36} {"resp+margins us",16} {"full analysis us",17}");
+foreach (var file in Directory.GetFiles(dir, "*.json").Order(StringComparer.Ordinal))
+{
+    var read = DesignFile.Read(File.ReadAllText(file));
+    if (read.Design is not LoopDesign design)
+    {
+        Console.WriteLine($"{Path.GetFileName(file),-36} unreadable: {string.Join("; ", read.Errors)}");
+        continue;
+    }
+
+    var full = DesignAnalyzer.Analyze(design);
+    if (!full.IsValid)
+    {
+        Console.WriteLine($"{Path.GetFileName(file),-36} invalid: {string.Join("; ", full.Issues)}");
+        continue;
+    }
+
+    var loop = full.Loop!.LoopGain;
+    var a = design.Analysis;
+    var grid = new FrequencyGrid(a.StartHz, a.StopHz, 1000).LogSpaced();
+
+    double respUs = Time(() =>
+    {
+        var r = FrequencyResponse.Of(loop, grid);
+        var m = MarginAnalyzer.Analyze(loop, a.StartHz, a.StopHz);
+        return r.Count + m.GainCrossovers.Length;
+    });
+    var fullDesign = design with { Analysis = a with { Points = 1000, StepSamples = 2000 } };
+    double fullUs = Time(() => DesignAnalyzer.Analyze(fullDesign).Criteria.Length);
+    Console.WriteLine($"{Path.GetFileName(file),-36} {respUs,16:F1} {fullUs,17:F1}");
+
+    var zeros = new JsonArray([.. loop.AllZeros.Select(z => (JsonNode)new JsonArray(z.Real, z.Imaginary))]);
+    var poles = new JsonArray([.. loop.AllPoles.Select(p => (JsonNode)new JsonArray(p.Real, p.Imaginary))]);
+    rows.Add(new JsonObject
+    {
+        ["design"] = Path.GetFileName(file),
+        ["gain"] = loop.Gain,
+        ["originOrder"] = loop.OriginOrder,
+        ["zerosRadPerS"] = zeros,
+        ["polesRadPerS"] = poles,
+        ["delayS"] = loop.DelayS,
+        ["startHz"] = a.StartHz,
+        ["stopHz"] = a.StopHz,
+        ["responseAndMarginsUs"] = respUs,
+        ["fullAnalysisUs"] = fullUs,
+        ["crossoverHz"] = full.Margins!.CrossoverHz,
+        ["phaseMarginDeg"] = full.Margins.PhaseMarginDeg,
+    });
+}
+
+Console.WriteLine("targets (issue 2): response + margins <= 20 us, full analysis <= 1000 us");
+if (export is not null)
+{
+    File.WriteAllText(export, rows.ToJsonString(new System.Text.Json.JsonSerializerOptions { WriteIndented = true }));
+    Console.WriteLine($"loops written to {export}");
+}
+
+return 0;
+
+static double Time(Func<int> work)
+{
+    int sink = 0;
+    // Warm up (tiered JIT), then time enough repetitions for ~0.5 s, best of five rounds.
+    var sw = Stopwatch.StartNew();
+    while (sw.ElapsedMilliseconds < 300)
+    {
+        sink += work();
+    }
+
+    int reps = 1;
+    sw.Restart();
+    while (sw.ElapsedMilliseconds < 20)
+    {
+        sink += work();
+        reps++;
+    }
+
+    reps = Math.Max(reps * 5, 5);
+    double best = double.MaxValue;
+    for (int round = 0; round < 5; round++)
+    {
+        sw.Restart();
+        for (int i = 0; i < reps; i++)
+        {
+            sink += work();
+        }
+
+        best = Math.Min(best, sw.Elapsed.TotalMicroseconds / reps);
+    }
+
+    GC.KeepAlive(sink);
+    return best;
+}
+
+static string? ArgValue(string[] args, string name)
+{
+    int i = Array.IndexOf(args, name);
+    return i >= 0 && i + 1 < args.Length ? args[i + 1] : null;
+}
+
+static string FindExamples()
+{
+    var d = new DirectoryInfo(AppContext.BaseDirectory);
+    while (d is not null && !Directory.Exists(Path.Combine(d.FullName, "docs", "examples")))
+    {
+        d = d.Parent;
+    }
+
+    return d is null ? "docs/examples" : Path.Combine(d.FullName, "docs", "examples");
+}
