@@ -518,7 +518,9 @@ public static class DesignAnalyzer
 
         if (op is not null && design.Plant is BuckPlant bp)
         {
-            double frac = op.RippleCurrentApp / bp.PowerStage.LoadCurrent.MaxA;
+            // In DCM the current pulse is not the design's ripple: the CCM ripple at this input (twice the boundary load) is.
+            double ripple = op.RectifierConductionFraction is null ? op.RippleCurrentApp : 2 * op.BoundaryLoadCurrentA;
+            double frac = ripple / bp.PowerStage.LoadCurrent.MaxA;
             r.Add(new("ripple current / full load", "criteria.minRippleFraction", frac >= k.MinRippleFraction && frac <= k.MaxRippleFraction,
                 (100 * frac).ToString("F0", inv) + " %", (100 * k.MinRippleFraction).ToString("F0", inv) + "-" + (100 * k.MaxRippleFraction).ToString("F0", inv) + " %"));
         }
