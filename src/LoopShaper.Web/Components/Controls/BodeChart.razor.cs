@@ -1,0 +1,172 @@
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Design;
+using LoopShaper.Web.Model.Charts;
+using Microsoft.AspNetCore.Components;
+using Microsoft.AspNetCore.Components.Web;
+using Plotly.Blazor;
+using Plotly.Blazor.Interop;
+
+namespace LoopShaper.Web.Components.Controls;
+
+/// <summary>
+/// The loop-gain Bode chart. Redraws with Plotly.react when the analysis changes; compensator markers are selected
+/// by clicking them (or their name) and nudged with the arrow keys.
+/// </summary>
+public sealed partial class BodeChart
+{
+    private PlotlyChart? _chart;
+    private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
+    private DesignAnalysis? _drawnAnalysis;
+    private BodeTraces _drawnShow = new();
+    private PlacementTarget? _drawnSelected;
+    private ChartFigure? _firstFigure;
+    private bool _drawn;
+    private bool _needsRedraw;
+
+    /// <summary>The analysis to show.</summary>
+    [Parameter, EditorRequired]
+    public DesignAnalysis Analysis { get; set; } = default!;
+
+    /// <summary>The form (for the selectable quantities).</summary>
+    [Parameter, EditorRequired]
+    public DesignForm Form { get; set; } = default!;
+
+    /// <summary>The selected quantity.</summary>
+    [Parameter]
+    public PlacementTarget? Selected { get; set; }
+
+    /// <summary>Raised when a quantity is selected or deselected.</summary>
+    [Parameter]
+    public EventCallback<PlacementTarget?> OnSelect { get; set; }
+
+    /// <summary>Raised after a nudge changed the form.</summary>
+    [Parameter]
+    public EventCallback OnChanged { get; set; }
+
+    /// <summary>Which traces are on.</summary>
+    public BodeTraces Show { get; private set; } = new();
+
+    /// <summary>The figure last sent to the chart.</summary>
+    public ChartFigure Figure => _figure;
+
+    private IEnumerable<PlacementTarget> Targets => Form.Mode != CompensatorMode.Placement ? [] : Form.CompensatorType switch
+    {
+        CompensatorType.TypeI => [PlacementTarget.Gain],
+        CompensatorType.TypeII => [PlacementTarget.Gain, PlacementTarget.Zero1, PlacementTarget.Pole1],
+        _ => [PlacementTarget.Gain, PlacementTarget.Zero1, PlacementTarget.Zero2, PlacementTarget.Pole1, PlacementTarget.Pole2],
+    };
+
+    /// <inheritdoc />
+    protected override void OnParametersSet()
+    {
+        if (!ReferenceEquals(Analysis, _drawnAnalysis) || Show != _drawnShow || Selected != _drawnSelected)
+        {
+            _figure = BodeFigure.Build(Analysis, Show, Form.Mode == CompensatorMode.Placement ? Selected : null);
+            _drawnAnalysis = Analysis;
+            _drawnShow = Show;
+            _drawnSelected = Selected;
+            _firstFigure ??= _figure;
+            _needsRedraw = true;
+        }
+    }
+
+    /// <inheritdoc />
+    protected override async Task OnAfterRenderAsync(bool firstRender)
+    {
+        // The first draw is the chart's own newPlot; later changes go through Plotly.react.
+        if (_drawn && _needsRedraw && _chart is not null)
+        {
+            _needsRedraw = false;
+            long started = System.Diagnostics.Stopwatch.GetTimestamp();
+            await _chart.React();
+            if (Logger.IsEnabled(LogLevel.Debug))
+            {
+                Logger.LogDebug("Bode chart react sent in {Ms:F1} ms", System.Diagnostics.Stopwatch.GetElapsedTime(started).TotalMilliseconds);
+            }
+        }
+    }
+
+    [Inject]
+    private ILogger<BodeChart> Logger { get; set; } = default!;
+
+    private async void OnFirstDraw()
+    {
+        _drawn = true;
+        if (_chart is null)
+        {
+            return;
+        }
+
+        try
+        {
+            await _chart.SubscribeClickEvent();
+            if (!ReferenceEquals(_figure, _firstFigure))
+            {
+                _needsRedraw = false;
+                await _chart.React();
+            }
+        }
+        catch (Exception ex) when (ex is Microsoft.JSInterop.JSDisconnectedException or Microsoft.JSInterop.JSException or TaskCanceledException)
+        {
+            // The circuit or the chart went away while it was being set up; nothing to draw into.
+        }
+    }
+
+    private void OnPointClick(IEnumerable<EventDataPoint> points)
+    {
+        var hit = points.Select(p => _figure.TargetAt(ToIndex(p.CurveNumber), ToIndex(p.PointIndex))).FirstOrDefault(t => t is not null);
+        if (hit is not null)
+        {
+            _ = InvokeAsync(() => OnSelect.InvokeAsync(hit));
+        }
+    }
+
+    private static int ToIndex(object? value) => value switch
+    {
+        int i => i,
+        long l => (int)l,
+        double d => (int)d,
+        System.Text.Json.JsonElement { ValueKind: System.Text.Json.JsonValueKind.Number } e => e.GetInt32(),
+        _ => -1,
+    };
+
+    private Task SelectTarget(PlacementTarget t) => OnSelect.InvokeAsync(Selected == t ? null : t);
+
+    private Task Toggle(ChangeEventArgs e, string trace)
+    {
+        bool on = e.Value is bool b && b;
+        Show = trace switch
+        {
+            nameof(BodeTraces.Loop) => Show with { Loop = on },
+            nameof(BodeTraces.Plant) => Show with { Plant = on },
+            _ => Show with { Compensator = on },
+        };
+        OnParametersSet();
+        return Task.CompletedTask;
+    }
+
+    private async Task OnKey(KeyboardEventArgs e)
+    {
+        if (e.Key == "Escape")
+        {
+            await OnSelect.InvokeAsync(null);
+            return;
+        }
+
+        if (Selected is not PlacementTarget t || Form.Mode != CompensatorMode.Placement)
+        {
+            return;
+        }
+
+        int steps = e.Key switch
+        {
+            "ArrowRight" or "ArrowUp" => 1,
+            "ArrowLeft" or "ArrowDown" => -1,
+            _ => 0,
+        };
+        if (steps != 0 && Placement.Nudge(Form, t, steps, e.ShiftKey))
+        {
+            await OnChanged.InvokeAsync();
+        }
+    }
+}

@@ -1,0 +1,74 @@
+using System.Globalization;
+using LoopShaper.Core.Analysis;
+using LoopShaper.Core.Design;
+using LoopShaper.Core.Validation;
+using Microsoft.AspNetCore.Components;
+using static LoopShaper.Core.Units.EngineeringFormat;
+
+namespace LoopShaper.Web.Components.Controls;
+
+/// <summary>The figures an engineer checks first, the criteria verdicts, the warnings and the safety notice, all from the core.</summary>
+public partial class SummaryPanel
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>The latest analysis, or null.</summary>
+    [Parameter]
+    public DesignAnalysis? Analysis { get; set; }
+
+    /// <summary>Why the analysis failed, or null.</summary>
+    [Parameter]
+    public string? ComputationError { get; set; }
+
+    /// <summary>Input findings that no visible field shows.</summary>
+    [Parameter]
+    public IReadOnlyList<ValidationIssue> OtherFindings { get; set; } = [];
+
+    /// <summary>Number of fields whose text cannot be read (the analysis used their last readable value).</summary>
+    [Parameter]
+    public int UnreadableFields { get; set; }
+
+    private List<string> Warnings
+    {
+        get
+        {
+            var list = new List<string>();
+            if (UnreadableFields > 0)
+            {
+                list.Add($"{UnreadableFields} field(s) cannot be read; the figures use their last readable value.");
+            }
+
+            list.AddRange(OtherFindings.Select(i => $"{i.Field}: {i.Message}"));
+            if (Analysis is not null)
+            {
+                list.AddRange(Analysis.Warnings.OrderByDescending(IsHazard));
+            }
+
+            return list;
+        }
+    }
+
+    private string RippleDetail
+    {
+        get
+        {
+            var c = Analysis?.Criteria.FirstOrDefault(x => x.Field == "criteria.minRippleFraction");
+            return c is null ? "peak to peak" : $"pk-pk, {c.Actual} of full load";
+        }
+    }
+
+    private static bool IsHazard(string warning) => warning.StartsWith("HAZARDOUS", StringComparison.Ordinal) || warning.StartsWith("LARGE STORED", StringComparison.Ordinal) || warning.StartsWith("HIGH AVAILABLE", StringComparison.Ordinal);
+
+    private static string CrossoverDetail(StabilityMargins m) => m.GainCrossovers.Length switch
+    {
+        0 => "|T| never crosses 0 dB in range",
+        1 => m.GainCrossovers[0].Falling ? "single, falling" : "single, rising",
+        var n => $"{n} crossovers: " + string.Join(", ", m.GainCrossovers.Select(g => Format(g.FrequencyHz, "Hz"))),
+    };
+
+    private string? CriterionState(string field)
+    {
+        var c = Analysis?.Criteria.FirstOrDefault(x => x.Field == field);
+        return c is null ? null : c.Passed ? "pass" : "fail";
+    }
+}

@@ -1,0 +1,157 @@
+using LoopShaper.Core.Design;
+using LoopShaper.Core.PlantModels;
+using LoopShaper.Core.Validation;
+using Microsoft.AspNetCore.Components;
+
+namespace LoopShaper.Web.Components.Pages;
+
+/// <summary>
+/// The workspace: inputs on the left, the summary, the loop-gain chart, the step responses and the derivations on
+/// the right. Every change recomputes through the core; this page only moves text between the form and the panels.
+/// </summary>
+public sealed partial class Designer : IDisposable
+{
+    /// <summary>Name of the top-bar section the file actions render into.</summary>
+    public const string TopBarSection = "topbar-actions";
+
+    private bool _interactive;
+    private string? _linkError;
+
+    /// <summary>A design packed by <see cref="ShareToken"/>, from a share link.</summary>
+    [SupplyParameterFromQuery(Name = ShareToken.QueryName)]
+    public string? DesignToken { get; set; }
+
+    /// <summary>The open design (created on initialisation).</summary>
+    public DesignWorkspace Workspace { get; private set; } = default!;
+
+    [Inject]
+    private DemoDesign Demo { get; set; } = default!;
+
+    [Inject]
+    private ILogger<Designer> Logger { get; set; } = default!;
+
+    private DesignForm Form => Workspace.Form;
+
+    private FieldIssues Issues => Workspace.Issues;
+
+    private int UnreadableCount => Form.UnreadableFields.Count();
+
+    private string? ChartState => Workspace.ComputationError
+        ?? (Workspace.Analysis is null ? "Computing…"
+            : !Workspace.Analysis.IsValid ? "No chart: the design has input errors (marked in red beside the fields)." : null);
+
+    private static readonly string[] GroupPaths =
+    [
+        "plant", "plant.powerStage", "plant.powerStage.inputVoltageV", "plant.powerStage.loadCurrentA", "plant.powerStage.inductor",
+        "plant.powerStage.rectifier", "plant.powerStage.outputCapacitors", "plant.control", "plant.feedback", "compensator", "compensator.gain",
+        "compensator.gain.kind", "analysis", "criteria",
+    ];
+
+    private IReadOnlyList<ValidationIssue> OtherFindings
+        => [.. Issues.Except(Form.ActiveFields.Select(f => f.Path).Concat(GroupPaths))];
+
+    /// <inheritdoc />
+    public void Dispose() => Workspace.Changed -= OnWorkspaceChanged;
+
+    /// <inheritdoc />
+    protected override async Task OnInitializedAsync()
+    {
+        var design = Demo.Design;
+        if (DesignToken is not null)
+        {
+            if (!ShareToken.TryReadJson(DesignToken, out var json, out var error))
+            {
+                _linkError = "The link could not be opened: " + error + " Showing the demo design instead.";
+            }
+            else
+            {
+                var read = DesignFile.Read(json);
+                if (read.Design is null)
+                {
+                    _linkError = "The link's design has errors: " + string.Join("; ", read.Errors.Select(e => e.ToString())) + " Showing the demo design instead.";
+                }
+                else
+                {
+                    design = read.Design;
+                }
+            }
+
+            if (_linkError is not null)
+            {
+                Logger.LogWarning("Share link rejected: {Reason}", _linkError);
+            }
+        }
+
+        Workspace = new DesignWorkspace(design, Logger);
+        Workspace.Changed += OnWorkspaceChanged;
+        await Workspace.RecomputeAsync();
+    }
+
+    /// <inheritdoc />
+    protected override void OnAfterRender(bool firstRender)
+    {
+        if (firstRender && RendererInfo.IsInteractive)
+        {
+            _interactive = true;
+            StateHasChanged();
+        }
+    }
+
+    private void OnWorkspaceChanged() => _ = InvokeAsync(StateHasChanged);
+
+    private Task Recompute() => Workspace.RecomputeAsync();
+
+    private Task Changed(FieldState _) => Workspace.RecomputeAsync();
+
+    private void SelectTarget(PlacementTarget? target) => Workspace.Select(target);
+
+    private void SelectOne(PlacementTarget target) => Workspace.Select(Workspace.Selected == target ? null : target);
+
+    private Task OnName(ChangeEventArgs e)
+    {
+        Form.Name = e.Value?.ToString() ?? string.Empty;
+        return Workspace.RecomputeAsync();
+    }
+
+    private Task OnDescription(ChangeEventArgs e)
+    {
+        Form.Description = e.Value?.ToString() ?? string.Empty;
+        return Workspace.RecomputeAsync();
+    }
+
+    private Task OnRectifier(ChangeEventArgs e)
+    {
+        if (Enum.TryParse<RectifierKind>(e.Value?.ToString(), out var kind))
+        {
+            Form.Rectifier = kind;
+        }
+
+        return Workspace.RecomputeAsync();
+    }
+
+    private Task OnFeedforward(ChangeEventArgs e)
+    {
+        Form.InputFeedforward = e.Value is bool b && b;
+        return Workspace.RecomputeAsync();
+    }
+
+    private Task OnInputCorner(ChangeEventArgs e)
+    {
+        if (Enum.TryParse<InputCorner>(e.Value?.ToString(), out var corner))
+        {
+            Form.InputCorner = corner;
+        }
+
+        return Workspace.RecomputeAsync();
+    }
+
+    private Task OnLoadCorner(ChangeEventArgs e)
+    {
+        if (Enum.TryParse<LoadCorner>(e.Value?.ToString(), out var corner))
+        {
+            Form.LoadCorner = corner;
+        }
+
+        return Workspace.RecomputeAsync();
+    }
+}

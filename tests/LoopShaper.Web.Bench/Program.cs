@@ -1,0 +1,129 @@
+using System.Globalization;
+using LoopShaper.Browser.Tests;
+using Microsoft.Playwright;
+
+// Browser benchmark (not a test): 50 input changes in the workspace, each timed from the change in the page to both
+// charts redrawn (Plotly's plotly_afterplot event on the loop-gain and step charts). Prints p50 and p95.
+// Usage: dotnet run --project tests/LoopShaper.Web.Bench [-- --changes 50] [-- --shot out.png]
+int changes = 50;
+string? shot = null;
+for (int i = 0; i < args.Length - 1; i++)
+{
+    if (args[i] == "--changes")
+    {
+        changes = int.Parse(args[i + 1], CultureInfo.InvariantCulture);
+    }
+    else if (args[i] == "--shot")
+    {
+        shot = args[i + 1];
+    }
+}
+
+await using var app = await WebAppProcess.StartAsync();
+await using var chromium = await Chromium.LaunchAsync();
+var page = await chromium.Context.NewPageAsync();
+var consoleErrors = new List<string>();
+page.Console += (_, m) =>
+{
+    if (m.Type == "error")
+    {
+        consoleErrors.Add(m.Text);
+    }
+};
+await page.GotoAsync(app.BaseUri.ToString());
+await page.WaitForSelectorAsync("[data-circuit=ready]");
+await page.WaitForSelectorAsync("#bode-chart .main-svg");
+await page.WaitForSelectorAsync("#step-chart .main-svg");
+
+if (shot is not null)
+{
+    await page.WaitForTimeoutAsync(1000);
+    await page.ScreenshotAsync(new PageScreenshotOptions { Path = shot });
+    int n = 0;
+    foreach (var card in await page.QuerySelectorAllAsync(".card"))
+    {
+        await card.ScreenshotAsync(new ElementHandleScreenshotOptions { Path = Path.ChangeExtension(shot, null) + $"-card{++n}.png" });
+    }
+
+    await (await page.QuerySelectorAsync(".inputs"))!.EvaluateAsync("e => e.scrollTop = 900");
+    await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.ChangeExtension(shot, null) + "-inputs2.png" });
+    await (await page.QuerySelectorAsync(".inputs"))!.EvaluateAsync("e => e.scrollTop = 1800");
+    await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.ChangeExtension(shot, null) + "-inputs3.png" });
+    Console.WriteLine("screenshots: " + shot + " and its -card*.png, -inputs*.png");
+    return 0;
+}
+
+// The demo's compensator is entered by parts; switch to frequencies (same loop) so the zero has its own field.
+await page.ClickAsync("[data-use-placement]");
+await page.WaitForSelectorAsync("#f-compensator-zero1Hz");
+await page.WaitForTimeoutAsync(500);
+
+// Count redraws of each chart in the page itself; also time Plotly.react itself (the browser's share).
+await page.EvaluateAsync(@"() => {
+  window.__react = [];
+  const original = window.Plotly.react;
+  window.Plotly.react = function (id, ...rest) {
+    const t0 = performance.now();
+    const r = original.call(this, id, ...rest);
+    Promise.resolve(r).then(() => window.__react.push({ id: typeof id === 'string' ? id : id.id, start: t0, ms: performance.now() - t0 }));
+    return r;
+  };
+  window.__draws = { bode: [], step: [] };
+  document.getElementById('bode-chart').on('plotly_afterplot', () => window.__draws.bode.push(performance.now()));
+  document.getElementById('step-chart').on('plotly_afterplot', () => window.__draws.step.push(performance.now()));
+}");
+
+// Alternate the inductance and the first compensator zero between values that keep the design valid.
+string[] inductances = ["270 nH", "330 nH", "390 nH", "470 nH"];
+string[] zeros = ["3.3k", "3.9k", "4.7k", "5.6k"];
+var times = new List<double>();
+for (int i = 0; i < changes; i++)
+{
+    string id = i % 2 == 0 ? "f-plant-powerStage-inductor-inductanceH" : "f-compensator-zero1Hz";
+    string value = i % 2 == 0 ? inductances[(i / 2) % inductances.Length] : zeros[(i / 2) % zeros.Length];
+    double ms = await page.EvaluateAsync<double>(@"([id, value]) => new Promise((resolve, reject) => {
+      const nb = window.__draws.bode.length, ns = window.__draws.step.length;
+      const input = document.getElementById(id);
+      const t0 = performance.now();
+      input.value = value;
+      input.dispatchEvent(new Event('input', { bubbles: true }));
+      const started = Date.now();
+      (function wait() {
+        if (window.__draws.bode.length > nb && window.__draws.step.length > ns) {
+          resolve(Math.max(window.__draws.bode[nb], window.__draws.step[ns]) - t0);
+        } else if (Date.now() - started > 10000) {
+          reject(new Error('charts not redrawn within 10 s'));
+        } else {
+          requestAnimationFrame(wait);
+        }
+      })();
+    })", new object[] { id, value });
+    times.Add(ms);
+}
+
+var react = await page.EvaluateAsync<System.Text.Json.JsonElement>("() => window.__react");
+var byChart = react.EnumerateArray().GroupBy(e => e.GetProperty("id").GetString() ?? "?");
+foreach (var g in byChart)
+{
+    var ms = g.Select(e => e.GetProperty("ms").GetDouble()).OrderBy(v => v).ToList();
+    Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"Plotly.react on {g.Key}: median {ms[ms.Count / 2]:F1} ms over {ms.Count} redraws (browser only)"));
+}
+
+times.Sort();
+double P(double q) => times[(int)Math.Ceiling(q * times.Count) - 1];
+Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"changes: {times.Count} (inductance and compensator zero alternately), from input event to both charts redrawn"));
+Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"p50: {P(0.50):F1} ms"));
+Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"p95: {P(0.95):F1} ms"));
+Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"min {times[0]:F1} ms, max {times[^1]:F1} ms"));
+if (Environment.GetEnvironmentVariable("BENCH_SHOW_SERVER_LOG") == "1")
+{
+    Console.WriteLine(app.Log);
+}
+
+if (consoleErrors.Count > 0)
+{
+    Console.WriteLine("console errors: " + string.Join(" | ", consoleErrors));
+    return 1;
+}
+
+return 0;
