@@ -22,6 +22,11 @@ public class DesignAnalysisTests
         Assert.Equal(40e3, a.Margins!.CrossoverHz!.Value, 40e3 * 1e-6);
         Assert.Equal(6, a.Corners.Length);
         Assert.All(a.Corners, c => Assert.Equal(SmallSignalModel.PeakCurrentModeContinuous, c.Model));
+
+        // The crossover target fixes the compensator once: the main corner crosses at the target, the others elsewhere.
+        var main = a.Corners.Single(c => c.Input == InputCorner.Nominal && c.Load == LoadCorner.Max);
+        Assert.Equal(40e3, main.CrossoverHz!.Value, 40e3 * 1e-6);
+        Assert.Contains(a.Corners, c => Math.Abs(c.CrossoverHz!.Value - 40e3) > 100);
         Assert.All(a.Corners, c => Assert.NotNull(c.Qp));
         foreach (var quantity in new[] { "Sensed on-time slope", "Sensed off-time slope", "Ramp factor", "Modulator gain", "Sampling gain", "Feedforward gain", "Output feedback gain", "Sampling double-pole quality factor", "Ramp for Qp = 1", "Current-loop crossover" })
         {

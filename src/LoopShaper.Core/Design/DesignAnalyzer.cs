@@ -231,10 +231,19 @@ public static class DesignAnalyzer
         };
     }
 
-    /// <summary>The loop at each input corner (min, nominal, max) and load corner (min, max), with the model used at each.</summary>
+    /// <summary>
+    /// The loop at each input corner (min, nominal, max) and load corner (min, max), with the model used at each. A
+    /// placement whose gain is a crossover target is resolved once, at the main operating point: the compensator is
+    /// the same hardware at every corner.
+    /// </summary>
     public static ImmutableArray<CornerResult> Corners(LoopDesign design, BuckPlant buck)
     {
         var s = buck.PowerStage;
+        if (design.Compensator is CompensatorPlacement { Gain.Kind: GainSettingKind.CrossoverHz } target)
+        {
+            design = design with { Compensator = Resolve(target, BuildLoop(design).Loop.Plant) };
+        }
+
         var result = new List<CornerResult>();
         foreach (var input in new[] { InputCorner.Min, InputCorner.Nominal, InputCorner.Max })
         {
