@@ -59,7 +59,7 @@ public class DesignFileErrorTests
         Assert.Equal(0.0, buck.PowerStage.OutputCapacitors[0].EslH);
         Assert.Equal(0.0, buck.PowerStage.Rectifier.ForwardDropV);
         Assert.Equal(0.95, buck.PowerStage.MaxDutyCycle);
-        Assert.False(buck.Control.InputFeedforward);
+        Assert.False(((VoltageModeControl)buck.Control).InputFeedforward);
         Assert.Equal(string.Empty, read.Design.Description);
         Assert.Equal(new AnalysisSettings(), read.Design.Analysis);
         Assert.Equal(new DesignCriteria(), read.Design.Criteria);
@@ -182,8 +182,8 @@ public class DesignFileErrorTests
     }
 
     [Theory]
-    [InlineData(2, "version 2 is newer than this program reads: it reads version 1.")]
-    [InlineData(0, "version 0 does not exist: the only version is 1.")]
+    [InlineData(3, "version 3 is newer than this program reads: it reads versions 1 to 2.")]
+    [InlineData(0, "version 0 does not exist: the versions are 1 to 2.")]
     public void A_version_this_program_does_not_know_stops_reading(int version, string message)
     {
         var e = Errors(j =>

@@ -91,7 +91,7 @@ public class DesignFileRoundTripTests
         var buck = (BuckPlant)design.Plant;
         var changed = design with
         {
-            Plant = buck with { Control = buck.Control with { RampAmplitudeV = 0.7, ModulatorDelayS = 3.3e-8 } },
+            Plant = buck with { Control = (VoltageModeControl)buck.Control with { RampAmplitudeV = 0.7, ModulatorDelayS = 3.3e-8 } },
             Compensator = new OpAmpNetwork(CompensatorType.TypeII, R1Ohm: 52.3e3, C1F: 4.7e-9, R2Ohm: 22e3, C2F: 100e-12, RBottomOhm: 10e3),
         };
         var back = DesignFile.Read(DesignFile.Write(changed));
@@ -114,7 +114,7 @@ public class DesignFileRoundTripTests
     {
         var design = DesignFile.Read(File.ReadAllText(RepoFiles.Example("core-rail-12v-to-1v0.json"))).Design!;
         string written = DesignFile.Write(design);
-        Assert.StartsWith("{\n  \"format\": \"loopshaper-design\",\n  \"version\": 1,\n", written, StringComparison.Ordinal);
+        Assert.StartsWith("{\n  \"format\": \"loopshaper-design\",\n  \"version\": 2,\n", written, StringComparison.Ordinal);
         // "330 nH" in the example is written as a number in henries.
         using var doc = System.Text.Json.JsonDocument.Parse(written);
         var l = doc.RootElement.GetProperty("plant").GetProperty("powerStage").GetProperty("inductor").GetProperty("inductanceH");

@@ -59,7 +59,7 @@ internal static class TestDesigns
     public static LoopDesign WithControl(this LoopDesign d, Func<VoltageModeControl, VoltageModeControl> change)
     {
         var buck = (BuckPlant)d.Plant;
-        return d with { Plant = buck with { Control = change(buck.Control) } };
+        return d with { Plant = buck with { Control = change((VoltageModeControl)buck.Control) } };
     }
 
     /// <summary>The buck design with its divider changed.</summary>

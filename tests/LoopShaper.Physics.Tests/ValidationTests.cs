@@ -301,7 +301,7 @@ public class ValidationTests
     public void Ripple_fraction_limits_out_of_order()
         => AssertRejected(TestDesigns.Buck() with { Criteria = new DesignCriteria(MinRippleFraction: 0.5, MaxRippleFraction: 0.3) }, "criteria.minRippleFraction", "criteria.maxRippleFraction");
 
-    public static TheoryData<string> ValidDesignNames => ["buck", "buck light load at max input", "buck diode at no load", "buck feedforward with delay", "custom coefficients", "custom factors", "custom integrator, Type I"];
+    public static TheoryData<string> ValidDesignNames => ["buck", "buck light load at max input", "buck diode at light load", "buck feedforward with delay", "custom coefficients", "custom factors", "custom integrator, Type I"];
 
     [Theory]
     [MemberData(nameof(ValidDesignNames))]
@@ -365,7 +365,9 @@ public class ValidationTests
     {
         "buck" => TestDesigns.Buck() with { Criteria = new DesignCriteria(MaxOvershootPct: 20, MaxLoadStepDeviationV: 0.1, MinCrossoverHz: 10e3) },
         "buck light load at max input" => TestDesigns.Buck() with { Analysis = new AnalysisSettings(Input: InputCorner.Max, Load: LoadCorner.Min) },
-        "buck diode at no load" => TestDesigns.Buck().WithStage(s => s with { Rectifier = Rectifier.Diode(0.4, 0.01), LoadCurrent = new CurrentRange(0, 10) }) with
+        // At no load a diode rectifier skips pulses and no averaged model holds (analysis.load is rejected then);
+        // 50 mA keeps the converter in DCM.
+        "buck diode at light load" => TestDesigns.Buck().WithStage(s => s with { Rectifier = Rectifier.Diode(0.4, 0.01), LoadCurrent = new CurrentRange(0.05, 10) }) with
         {
             Compensator = new CompensatorPlacement(CompensatorType.TypeII, new GainSetting(GainSettingKind.CrossoverHz, 40e3), Zero1Hz: 4e3, Pole1Hz: 200e3),
             Analysis = new AnalysisSettings(Load: LoadCorner.Min),

@@ -11,6 +11,7 @@ namespace LoopShaper.Core.Design;
 /// <param name="ReferenceStepV">Size of the reference step, V.</param>
 /// <param name="StepDurationS">Simulated time of step responses, s; null picks 20 periods of the crossover frequency.</param>
 /// <param name="StepSamples">Samples of each step response.</param>
+/// <param name="ConductionModel">Which conduction-mode model to use (automatic by default).</param>
 public sealed record AnalysisSettings(
     double StartHz = 10.0,
     double StopHz = 1e6,
@@ -21,4 +22,5 @@ public sealed record AnalysisSettings(
     double LoadStepSlewAPerS = 1e7,
     double ReferenceStepV = 0.01,
     double? StepDurationS = null,
-    int StepSamples = 2000);
+    int StepSamples = 2000,
+    ConductionModelChoice ConductionModel = ConductionModelChoice.Automatic);

@@ -26,6 +26,30 @@ public sealed record DesignAnalysis
     /// <summary>The loop's blocks.</summary>
     public LoopModel? Loop { get; init; }
 
+    /// <summary>Which small-signal plant model the main analysis used (CCM or DCM, voltage or peak current mode).</summary>
+    public SmallSignalModel? Model { get; init; }
+
+    /// <summary>Peak current-mode figures at the main operating point (slopes, mc, Fm, kf, kr, Qp, the ramp for Qp = 1); null otherwise.</summary>
+    public PeakCurrentModeFigures? CurrentMode { get; init; }
+
+    /// <summary>Inner current-loop gain Ti (peak current mode in CCM); null otherwise.</summary>
+    public FrequencyResponse? CurrentLoopResponse { get; init; }
+
+    /// <summary>Margins of the inner current loop Ti (peak current mode in CCM); null otherwise.</summary>
+    public StabilityMargins? CurrentLoopMargins { get; init; }
+
+    /// <summary>Compensator with an ideal amplifier, beside the real one (null when the amplifier is ideal).</summary>
+    public FrequencyResponse? IdealAmplifierCompensatorResponse { get; init; }
+
+    /// <summary>Loop gain with an ideal amplifier (null when the amplifier is ideal).</summary>
+    public FrequencyResponse? IdealAmplifierLoopResponse { get; init; }
+
+    /// <summary>Margins with an ideal amplifier (null when the amplifier is ideal).</summary>
+    public StabilityMargins? IdealAmplifierMargins { get; init; }
+
+    /// <summary>The loop at every corner of the input and load ranges (power-stage plants only), with the model each used.</summary>
+    public ImmutableArray<CornerResult> Corners { get; init; } = [];
+
     /// <summary>The compensator as a placement, gain resolved (from parts or a crossover target).</summary>
     public CompensatorPlacement? ResolvedPlacement { get; init; }
 

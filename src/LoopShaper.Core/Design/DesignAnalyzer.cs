@@ -44,31 +44,71 @@ public static class DesignAnalyzer
         settings.Input switch { InputCorner.Min => stage.InputVoltage.MinV, InputCorner.Max => stage.InputVoltage.MaxV, _ => stage.InputVoltage.NominalV },
         settings.Load == LoadCorner.Min ? stage.LoadCurrent.MinA : stage.LoadCurrent.MaxA);
 
-    /// <summary>Builds the loop of a design at an operating condition (power-stage plants) and its operating point.</summary>
-    public static (LoopModel Loop, OperatingPoint? OperatingPoint, ImmutableArray<Derivation> Derivations) BuildLoop(LoopDesign design, OperatingCondition? condition = null)
+    /// <summary>
+    /// Builds the loop of a design at an operating condition (power-stage plants). The plant model follows the plant's
+    /// control record (voltage mode or peak current mode) and the operating point's conduction mode (CCM, or DCM for a
+    /// diode rectifier below the boundary load), unless analysis.conductionModel forces one.
+    /// </summary>
+    public static AssembledLoop BuildLoop(LoopDesign design, OperatingCondition? condition = null)
     {
         TransferFunction plant, modulator;
-        TransferFunction? gvg = null, zout = null;
+        TransferFunction? gvg = null, zout = null, ti = null;
         double divider;
         OperatingPoint? op = null;
+        PeakCurrentModeFigures? figures = null;
+        SmallSignalModel model = SmallSignalModel.Custom;
+        var compensator = design.Compensator;
         var steps = new List<Derivation>();
         switch (design.Plant)
         {
             case BuckPlant buck:
-                var at = condition ?? ConditionOf(buck.PowerStage, design.Analysis);
-                op = BuckOperatingPoint.Solve(buck.PowerStage, at);
-                var tfs = VoltageModeBuck.TransferFunctions(buck.PowerStage, op);
-                double vm = buck.Control.RampAt(at.InputVoltageV);
-                modulator = TransferFunction.Constant(1.0 / vm).WithDelay(buck.Control.ModulatorDelayS);
-                plant = tfs.ControlToOutput;
-                gvg = buck.Control.InputFeedforward
-                    ? tfs.LineToOutput.Add(tfs.ControlToOutput.Scale(-op.DutyCycle / at.InputVoltageV))
-                    : tfs.LineToOutput;
-                zout = tfs.OutputImpedance;
-                divider = buck.Feedback.Ratio;
+                var stage = buck.PowerStage;
+                var at = condition ?? ConditionOf(stage, design.Analysis);
+                op = SolveOperatingPoint(stage, at, design.Analysis.ConductionModel);
                 steps.AddRange(op.Derivations);
-                steps.AddRange(tfs.Derivations);
-                steps.Add(new Derivation("Modulator gain", "Fm = 1 / Vm", $"Fm = 1 / {Format(vm, "V")}", Format(1.0 / vm, "1/V"), "Erickson & Maksimovic, 2nd ed., sec. 7.3"));
+                divider = buck.Feedback.Ratio;
+                if (compensator is OpAmpNetwork { RBottomOhm: 0.0 } net)
+                {
+                    compensator = net with { RBottomOhm = buck.Feedback.BottomOhm };
+                }
+
+                switch (buck.Control)
+                {
+                    case VoltageModeControl vmc:
+                        var tfs = op.RectifierConductionFraction is null ? VoltageModeBuck.TransferFunctions(stage, op) : DcmBuck.TransferFunctions(stage, op);
+                        double vm = vmc.RampAt(at.InputVoltageV);
+                        double td = vmc.TotalDelayS(stage.SwitchingFrequencyHz);
+                        modulator = TransferFunction.Constant(1.0 / vm).WithDelay(td);
+                        plant = tfs.ControlToOutput;
+                        gvg = vmc.InputFeedforward
+                            ? tfs.LineToOutput.Add(tfs.ControlToOutput.Scale(-op.DutyCycle / at.InputVoltageV))
+                            : tfs.LineToOutput;
+                        zout = tfs.OutputImpedance;
+                        model = tfs.Model;
+                        steps.AddRange(tfs.Derivations);
+                        steps.Add(new Derivation("Modulator gain", "Fm = 1 / Vm", $"Fm = 1 / {Format(vm, "V")}", Format(1.0 / vm, "1/V"), "Erickson & Maksimovic, 2nd ed., sec. 7.3"));
+                        if (td > 0)
+                        {
+                            steps.Add(new Derivation("Modulator delay", "Td = delay + fraction x Ts, e^(-s Td) exact in T(s)", string.Create(CultureInfo.InvariantCulture, $"Td = {Format(vmc.ModulatorDelayS, "s")} + {vmc.ModulatorDelayFractionOfPeriod:G4} x {Format(1.0 / stage.SwitchingFrequencyHz, "s")}"), Format(td, "s"), "pure delay, shared/CONVENTIONS.md"));
+                        }
+
+                        break;
+                    case PeakCurrentModeControl pcm:
+                        var cm = PeakCurrentModeBuck.TransferFunctions(stage, op, pcm);
+                        // The modulator delay is kept as the modulator block, the rest of Fm is inside Gvc.
+                        modulator = TransferFunction.Delay(cm.ControlToOutput.DelayS);
+                        plant = cm.ControlToOutput.WithoutDelay();
+                        gvg = cm.LineToOutput;
+                        zout = cm.OutputImpedance;
+                        ti = cm.CurrentLoopGain;
+                        figures = cm.CurrentMode;
+                        model = cm.Model;
+                        steps.AddRange(cm.Derivations);
+                        break;
+                    default:
+                        throw new InvalidOperationException("Unknown control scheme.");
+                }
+
                 break;
             case CustomPlant custom:
                 plant = custom.TransferFunction();
@@ -80,15 +120,38 @@ public static class DesignAnalyzer
                 throw new InvalidOperationException("Unknown plant kind.");
         }
 
-        var rest = modulator.Multiply(plant);
-        var gc = design.Compensator.TransferFunction(rest);
-        var loop = new LoopModel(gc, modulator, plant, 1.0, divider, gvg, zout);
-        return (loop, op, [.. steps]);
+        double sense = compensator.TakesDividedOutput ? divider : 1.0;
+        var rest = modulator.Multiply(plant).Scale(sense);
+        var gc = compensator.TransferFunction(rest);
+        var ideal = compensator.HasIdealAmplifier ? null : compensator.IdealTransferFunction(rest);
+        var loop = new LoopModel(gc, modulator, plant, sense, divider, gvg, zout);
+        return new AssembledLoop(loop, op, [.. steps], model, figures, ti, ideal);
+    }
+
+    /// <summary>
+    /// The operating point the analysis uses: the physical one (automatic), the CCM solution when the CCM model is forced,
+    /// and the DCM solution when the DCM model is forced (only where the point is in DCM; the validator says so otherwise).
+    /// </summary>
+    public static OperatingPoint SolveOperatingPoint(BuckPowerStage stage, OperatingCondition at, ConductionModelChoice choice)
+    {
+        if (choice == ConductionModelChoice.Continuous)
+        {
+            return BuckOperatingPoint.SolveContinuous(stage, at);
+        }
+
+        var op = BuckOperatingPoint.Solve(stage, at);
+        if (choice == ConductionModelChoice.Discontinuous && op.RectifierConductionFraction is null)
+        {
+            throw new InvalidOperationException($"analysis.conductionModel: the DCM model was asked for, but the operating point at {Format(at.LoadCurrentA, "A")} is in CCM.");
+        }
+
+        return op;
     }
 
     private static DesignAnalysis AnalyzeValid(LoopDesign design, ImmutableArray<ValidationIssue> issues)
     {
-        var (loop, op, plantSteps) = BuildLoop(design);
+        var built = BuildLoop(design);
+        var (loop, op, plantSteps) = (built.Loop, built.OperatingPoint, built.Derivations);
         var a = design.Analysis;
         var placement = Resolve(design.Compensator, loop.Plant);
         var t = loop.LoopGain;
@@ -113,10 +176,33 @@ public static class DesignAnalyzer
         var plantResponse = FrequencyResponse.Of(loop.Plant, grid);
         var compResponse = FrequencyResponse.Of(loop.Compensator, grid);
         var steps = new List<Derivation>(plantSteps);
-        steps.AddRange(CompensatorDerivations(design.Compensator, placement));
+        steps.AddRange(CompensatorDerivations(design.Compensator, placement, loop));
         steps.AddRange(MarginDerivations(margins));
 
-        var warnings = Warnings(design, op, margins);
+        StabilityMargins? currentMargins = null;
+        FrequencyResponse? currentResponse = null;
+        if (built.CurrentLoopGain is TransferFunction ti && design.Plant is BuckPlant pb)
+        {
+            // The current loop is analysed up to the switching frequency: its model (He) holds to fs / 2.
+            currentMargins = MarginAnalyzer.Analyze(ti, a.StartHz, Math.Max(pb.PowerStage.SwitchingFrequencyHz, a.StartHz * 10));
+            currentResponse = FrequencyResponse.Of(ti, grid);
+            if (currentMargins.CrossoverHz is double fci && currentMargins.PhaseMarginDeg is double pmi)
+            {
+                steps.Add(new Derivation("Current-loop crossover", "|Ti(j 2 pi fci)| = 1, Ti = Fm Ri He Gid", string.Create(CultureInfo.InvariantCulture, $"PM = {pmi:F1} deg"), Format(fci, "Hz"), "Ridley 1991 (current-loop gain)"));
+            }
+        }
+
+        FrequencyResponse? idealComp = null, idealLoop = null;
+        StabilityMargins? idealMargins = null;
+        if (built.IdealAmplifierCompensator is TransferFunction gi)
+        {
+            idealComp = FrequencyResponse.Of(gi, grid);
+            idealLoop = plantResponse.Times(idealComp);
+            idealMargins = MarginAnalyzer.Analyze(gi.Multiply(loop.Plant), a.StartHz, a.StopHz);
+        }
+
+        var corners = design.Plant is BuckPlant cb ? Corners(design, cb) : [];
+        var warnings = Warnings(design, op, margins, built, corners);
         var criteria = Criteria(design, op, margins, refStep, loadStep);
         return new DesignAnalysis
         {
@@ -124,6 +210,14 @@ public static class DesignAnalyzer
             Issues = issues,
             OperatingPoint = op,
             Loop = loop,
+            Model = built.Model,
+            CurrentMode = built.CurrentMode,
+            CurrentLoopResponse = currentResponse,
+            CurrentLoopMargins = currentMargins,
+            IdealAmplifierCompensatorResponse = idealComp,
+            IdealAmplifierLoopResponse = idealLoop,
+            IdealAmplifierMargins = idealMargins,
+            Corners = corners,
             ResolvedPlacement = placement,
             Margins = margins,
             PlantResponse = plantResponse,
@@ -137,23 +231,92 @@ public static class DesignAnalyzer
         };
     }
 
+    /// <summary>
+    /// The loop at each input corner (min, nominal, max) and load corner (min, max), with the model used at each. A
+    /// placement whose gain is a crossover target is resolved once, at the main operating point: the compensator is
+    /// the same hardware at every corner.
+    /// </summary>
+    public static ImmutableArray<CornerResult> Corners(LoopDesign design, BuckPlant buck)
+    {
+        var s = buck.PowerStage;
+        if (design.Compensator is CompensatorPlacement { Gain.Kind: GainSettingKind.CrossoverHz } target)
+        {
+            design = design with { Compensator = Resolve(target, BuildLoop(design).Loop.Plant) };
+        }
+
+        var result = new List<CornerResult>();
+        foreach (var input in new[] { InputCorner.Min, InputCorner.Nominal, InputCorner.Max })
+        {
+            foreach (var load in new[] { LoadCorner.Min, LoadCorner.Max })
+            {
+                var at = ConditionOf(s, new AnalysisSettings(Input: input, Load: load));
+                var physical = BuckOperatingPoint.Solve(s, at);
+                if (physical.Mode == ConductionMode.Discontinuous && at.LoadCurrentA <= 0 && design.Analysis.ConductionModel != ConductionModelChoice.Continuous)
+                {
+                    result.Add(new CornerResult(input, load, at, physical.Mode, null, physical.DutyCycle, null, null, null, null, null, "no load with a diode rectifier: the converter skips pulses and no averaged model holds"));
+                    continue;
+                }
+
+                if (design.Analysis.ConductionModel == ConductionModelChoice.Discontinuous && physical.Mode == ConductionMode.Continuous)
+                {
+                    result.Add(new CornerResult(input, load, at, physical.Mode, null, physical.DutyCycle, null, null, null, null, null, "CCM here: the forced DCM model does not apply"));
+                    continue;
+                }
+
+                try
+                {
+                    var built = BuildLoop(design, at);
+                    var m = MarginAnalyzer.Analyze(built.Loop.LoopGain, design.Analysis.StartHz, design.Analysis.StopHz);
+                    result.Add(new CornerResult(input, load, at, physical.Mode, built.Model, built.OperatingPoint!.DutyCycle, m.CrossoverHz, m.PhaseMarginDeg, m.UpperGainMarginDb, m.IsClosedLoopStable, built.CurrentMode?.Qp,
+                        built.CurrentMode is { IsSubharmonicallyUnstable: true } ? "subharmonic oscillation: the current loop is unstable here" : null));
+                }
+                catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+                {
+                    result.Add(new CornerResult(input, load, at, physical.Mode, null, physical.DutyCycle, null, null, null, null, null, "not analysed: " + ex.Message));
+                }
+            }
+        }
+
+        return [.. result];
+    }
+
     private static StepResponse Simulate(TransferFunction h, double duration, int samples, double amplitude, int? pade)
     {
         var r = StepSimulator.Simulate(h, duration, samples, amplitude);
         return pade is null ? r : r with { Delay = DelayTreatment.Pade, PadeOrder = pade };
     }
 
-    /// <summary>The compensator as a placement with its gain as an integrator frequency.</summary>
+    /// <summary>The compensator as a placement with its gain as an integrator frequency (ideal amplifier for parts-based networks).</summary>
     public static CompensatorPlacement Resolve(Compensator compensator, TransferFunction plant) => compensator switch
     {
         OpAmpNetwork n => n.ToPlacement(),
+        TransconductanceNetwork g => g.ToPlacement(),
         CompensatorPlacement p => p with { Gain = new GainSetting(GainSettingKind.IntegratorHz, p.IntegratorHz(plant)) },
         _ => throw new InvalidOperationException("Unknown compensator kind."),
     };
 
-    private static IEnumerable<Derivation> CompensatorDerivations(Compensator compensator, CompensatorPlacement placement)
+    private static IEnumerable<Derivation> CompensatorDerivations(Compensator compensator, CompensatorPlacement placement, LoopModel loop)
     {
         const string src = "Venable 1983; Basso 2012, ch. 3 (op-amp Type I/II/III networks)";
+        var inv = CultureInfo.InvariantCulture;
+        if (compensator is TransconductanceNetwork g)
+        {
+            const string ota = "Basso 2012, ch. 3 (OTA compensators); Gc = gm (Ro || Zn) multiplied out here";
+            double gm = g.Amplifier.TransconductanceS, ro = g.Amplifier.OutputResistanceOhm;
+            yield return new("Sense gain ahead of the OTA", "H = Hdiv = Rbottom / (Rtop + Rbottom)", "from plant.feedback", loop.SenseGain.ToString("F4", inv), "divider ratio");
+            yield return new("Integrator frequency (Ro infinite)", "fi = gm / (2 pi (C1 + C2))", $"fi = {Format(gm, "S")} / (2 pi x ({Format(g.C1F, "F")} + {Format(g.C2F, "F")}))", Format(placement.Gain.Value, "Hz"), ota);
+            if (g.Type == CompensatorType.TypeII)
+            {
+                yield return new("Zero", "fz = 1 / (2 pi R2 C1)", $"fz = 1 / (2 pi x {Format(g.R2Ohm, "Ohm")} x {Format(g.C1F, "F")})", Format(placement.Zero1Hz!.Value, "Hz"), ota);
+                yield return new("Pole", "fp = (C1 + C2) / (2 pi R2 C1 C2)", $"fp = ({Format(g.C1F, "F")} + {Format(g.C2F, "F")}) / (2 pi x {Format(g.R2Ohm, "Ohm")} x {Format(g.C1F, "F")} x {Format(g.C2F, "F")})", Format(placement.Pole1Hz!.Value, "Hz"), ota);
+            }
+
+            yield return new("DC gain of the OTA", "Gc(0) = gm Ro", $"Gc(0) = {Format(gm, "S")} x {Format(ro, "Ohm")}", string.Create(inv, $"{gm * ro:G4} V/V ({20 * Math.Log10(gm * ro):F1} dB)"), ota);
+            yield return new("Low-frequency pole from Ro", "fLF = 1 / (2 pi Ro (C1 + C2)) (approximately, for Ro >> R2)", $"fLF = 1 / (2 pi x {Format(ro, "Ohm")} x ({Format(g.C1F, "F")} + {Format(g.C2F, "F")}))", Format(1.0 / (2 * Math.PI * ro * (g.C1F + g.C2F)), "Hz"), ota);
+            yield return new("Compensator transfer function (exact)", "Gc = gm Ro Nn / (Ro Dn + Nn), Zn = Nn / Dn", loop.Compensator.ToString(), "", ota);
+            yield break;
+        }
+
         if (compensator is OpAmpNetwork n)
         {
             yield return new("Integrator frequency", "fi = 1 / (2 pi R1 (C1 + C2))", $"fi = 1 / (2 pi x {Format(n.R1Ohm, "Ohm")} x ({Format(n.C1F, "F")} + {Format(n.C2F, "F")}))", Format(placement.Gain.Value, "Hz"), src);
@@ -167,6 +330,14 @@ public static class DesignAnalyzer
             {
                 yield return new("Second zero", "fz2 = 1 / (2 pi (R1 + R3) C3)", $"fz2 = 1 / (2 pi x ({Format(n.R1Ohm, "Ohm")} + {Format(n.R3Ohm, "Ohm")}) x {Format(n.C3F, "F")})", Format(placement.Zero2Hz!.Value, "Hz"), src);
                 yield return new("Second pole", "fp2 = 1 / (2 pi R3 C3)", $"fp2 = 1 / (2 pi x {Format(n.R3Ohm, "Ohm")} x {Format(n.C3F, "F")})", Format(placement.Pole2Hz!.Value, "Hz"), src);
+            }
+
+            if (n.Amplifier is OpAmp amp)
+            {
+                const string real = "nodal analysis of the inverting node with vn = -vo / A(s) (our derivation); single-pole op-amp model after Basso 2012, ch. 3";
+                yield return new("Op-amp dominant pole", "fa = GBW / A0", string.Create(inv, $"fa = {Format(amp.GainBandwidthHz, "Hz")} / {amp.OpenLoopGain:G4}"), Format(amp.DominantPoleHz, "Hz"), real);
+                yield return new("Finite-gain compensator (exact)", "Gc = (Zf / Zin) / (1 + (1 + Zf (1/Zin + 1/Rb)) / A(s)), A = A0 / ((1 + s/wa)(1 + s/w2))",
+                    string.Create(inv, $"A0 = {amp.OpenLoopGain:G4}, GBW = {Format(amp.GainBandwidthHz, "Hz")}{(amp.SecondPoleHz is double f2 ? ", f2 = " + Format(f2, "Hz") : "")}"), loop.Compensator.ToString(), real);
             }
         }
         else if (compensator is CompensatorPlacement p && p.Gain.Kind == GainSettingKind.CrossoverHz)
@@ -203,7 +374,7 @@ public static class DesignAnalyzer
             m.IsClosedLoopStable ? "stable: every pole in the left half plane" : "UNSTABLE: a pole in the right half plane or on the axis", "closed-loop characteristic equation");
     }
 
-    private static ImmutableArray<string> Warnings(LoopDesign design, OperatingPoint? op, StabilityMargins m)
+    private static ImmutableArray<string> Warnings(LoopDesign design, OperatingPoint? op, StabilityMargins m, AssembledLoop built, ImmutableArray<CornerResult> corners)
     {
         var w = new List<string>();
         var inv = CultureInfo.InvariantCulture;
@@ -237,13 +408,26 @@ public static class DesignAnalyzer
                 var light = BuckOperatingPoint.Solve(s, new OperatingCondition(s.InputVoltage.MaxV, s.LoadCurrent.MinA));
                 if (light.Mode == ConductionMode.Discontinuous)
                 {
-                    w.Add($"DCM: with the diode rectifier the converter enters discontinuous conduction below {Format(light.BoundaryLoadCurrentA, "A")} load (at the maximum input); the CCM model used here does not hold there.");
+                    w.Add($"DCM: with the diode rectifier the converter enters discontinuous conduction below {Format(light.BoundaryLoadCurrentA, "A")} load (at the maximum input); the DCM model (Sun et al. 2001) is used at those corners.");
                 }
             }
 
             if (op is not null && op.Mode == ConductionMode.Discontinuous)
             {
-                w.Add("DCM at the analysed operating point: the CCM small-signal model is not valid here.");
+                w.Add(built.Model is SmallSignalModel.VoltageModeDiscontinuous or SmallSignalModel.PeakCurrentModeDiscontinuous
+                    ? "DCM at the analysed operating point: the full-order DCM averaged model is used."
+                    : "DCM at the analysed operating point, but analysis.conductionModel forces the CCM model: it does not hold here.");
+            }
+
+            if (op is not null && s.Rectifier.Kind == RectifierKind.Diode && op.Condition.LoadCurrentA > 0
+                && Math.Abs(op.Condition.LoadCurrentA - op.BoundaryLoadCurrentA) < 0.1 * op.BoundaryLoadCurrentA)
+            {
+                w.Add(string.Create(inv, $"The analysed load {Format(op.Condition.LoadCurrentA, "A")} is within 10 % of the CCM/DCM boundary {Format(op.BoundaryLoadCurrentA, "A")}: the small-signal behaviour changes abruptly at the boundary (the CCM and DCM models differ there); check the margins on both sides."));
+            }
+
+            if (buck.Control is PeakCurrentModeControl)
+            {
+                CurrentModeWarnings(w, built.CurrentMode, corners, s);
             }
         }
 
@@ -269,6 +453,40 @@ public static class DesignAnalyzer
 
         w.AddRange(m.Notes);
         return [.. w];
+    }
+
+    /// <summary>Qp above this is flagged: common practice, no source (Qp near 1 is the usual target).</summary>
+    public const double MaxQp = 2.0;
+
+    private static void CurrentModeWarnings(List<string> w, PeakCurrentModeFigures? main, ImmutableArray<CornerResult> corners, BuckPowerStage s)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        if (main is { IsSubharmonicallyUnstable: true })
+        {
+            w.Add(string.Create(inv, $"SUBHARMONIC OSCILLATION: at D = {main.DutyCycle:F3}, mc D' - 0.5 = {main.DampingTerm:F3} <= 0, so the current loop is unstable (Ridley 1991: Qp = 1 / (pi (mc D' - 0.5))). A ramp of Se = {Format(main.SuggestedRampForUnityQpVPerS, "V/s")} (mc = {main.SuggestedMcForUnityQp:F3}) gives Qp = 1."));
+        }
+        else if (main is { Qp: double qp } && qp > MaxQp)
+        {
+            w.Add(string.Create(inv, $"High Qp: {qp:F2} at D = {main.DutyCycle:F3} (above {MaxQp:F0}, common practice, no source): the sampling double pole at {Format(main.SamplingPoleHz, "Hz")} peaks and the converter is close to subharmonic oscillation. Se = {Format(main.SuggestedRampForUnityQpVPerS, "V/s")} (mc = {main.SuggestedMcForUnityQp:F3}) gives Qp = 1."));
+        }
+
+        var worst = corners.Where(c => c.Mode == ConductionMode.Continuous && c.Model == SmallSignalModel.PeakCurrentModeContinuous).MaxBy(c => c.DutyCycle);
+        if (worst is not null && main is not null && worst.DutyCycle > main.DutyCycle + 1e-9)
+        {
+            if (worst.Qp is null)
+            {
+                w.Add(string.Create(inv, $"SUBHARMONIC OSCILLATION at the {worst.Input.ToString().ToLowerInvariant()} input corner ({Format(worst.Condition.InputVoltageV, "V")}, D = {worst.DutyCycle:F3}): mc D' - 0.5 <= 0 there; add compensation ramp (mc >= {PeakCurrentModeBuck.McForQp(1.0, worst.DutyCycle):F3} gives Qp = 1 there)."));
+            }
+            else if (worst.Qp > MaxQp)
+            {
+                w.Add(string.Create(inv, $"High Qp: {worst.Qp:F2} at the {worst.Input.ToString().ToLowerInvariant()} input corner ({Format(worst.Condition.InputVoltageV, "V")}, D = {worst.DutyCycle:F3}); mc = {PeakCurrentModeBuck.McForQp(1.0, worst.DutyCycle):F3} gives Qp = 1 there."));
+            }
+        }
+
+        if (main is not null && !main.IsDiscontinuous && s.InputVoltage.MinV > 0 && main.DutyCycle > 0.5 && main.Mc <= 1.0)
+        {
+            w.Add("Peak current mode above D = 0.5 without a compensation ramp: the current loop is unstable (subharmonic oscillation).");
+        }
     }
 
     private static ImmutableArray<CriterionResult> Criteria(LoopDesign design, OperatingPoint? op, StabilityMargins m, StepResponse refStep, StepResponse? loadStep)
@@ -309,7 +527,9 @@ public static class DesignAnalyzer
 
         if (op is not null && design.Plant is BuckPlant bp)
         {
-            double frac = op.RippleCurrentApp / bp.PowerStage.LoadCurrent.MaxA;
+            // In DCM the current pulse is not the design's ripple: the CCM ripple at this input (twice the boundary load) is.
+            double ripple = op.RectifierConductionFraction is null ? op.RippleCurrentApp : 2 * op.BoundaryLoadCurrentA;
+            double frac = ripple / bp.PowerStage.LoadCurrent.MaxA;
             r.Add(new("ripple current / full load", "criteria.minRippleFraction", frac >= k.MinRippleFraction && frac <= k.MaxRippleFraction,
                 (100 * frac).ToString("F0", inv) + " %", (100 * k.MinRippleFraction).ToString("F0", inv) + "-" + (100 * k.MaxRippleFraction).ToString("F0", inv) + " %"));
         }

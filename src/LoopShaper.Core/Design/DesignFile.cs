@@ -10,8 +10,12 @@ public static class DesignFile
     /// <summary>The value of the top-level "format" field.</summary>
     public const string FormatName = "loopshaper-design";
 
-    /// <summary>The version this program reads and writes.</summary>
-    public const int CurrentVersion = 1;
+    /// <summary>The version this program writes. Version 2 added peak current mode, the modulator delay as a fraction of
+    /// the period, real error amplifiers (op-amp and transconductance) and analysis.conductionModel.</summary>
+    public const int CurrentVersion = 2;
+
+    /// <summary>The oldest version this program still reads (version 1 files read unchanged).</summary>
+    public const int OldestVersion = 1;
 
     /// <summary>
     /// Reads a design file. Never throws for bad input: syntax errors (with line and column), wrong types, units and

@@ -38,17 +38,17 @@ internal static class DesignFileReader
         using (doc)
         {
             var root = JsonFieldReader.Open(doc.RootElement, "$", errors);
-            if (!root.IsObject || !ReadHeader(root, errors))
+            if (!root.IsObject || !ReadHeader(root, errors, out int version))
             {
                 return new DesignFileResult(null, [.. errors]);
             }
 
             string name = root.Text("name");
             string description = root.Text("description", string.Empty);
-            var plant = ReadPlant(root.Object("plant"));
-            var compensator = ReadCompensator(root.Object("compensator"));
+            var plant = ReadPlant(root.Object("plant"), version);
+            var compensator = ReadCompensator(root.Object("compensator"), version);
             var analysisFields = root.OptionalObject("analysis");
-            var analysis = analysisFields is null ? new AnalysisSettings() : ReadAnalysis(analysisFields);
+            var analysis = analysisFields is null ? new AnalysisSettings() : ReadAnalysis(analysisFields, version);
             var criteriaFields = root.OptionalObject("criteria");
             var criteria = criteriaFields is null ? new DesignCriteria() : ReadCriteria(criteriaFields);
             var synthesisFields = root.OptionalObject("synthesis");
@@ -66,8 +66,9 @@ internal static class DesignFileReader
     private static DesignFileResult Fail(string path, string message) => new(null, [new ValidationIssue(path, message)]);
 
     /// <summary>"format" and "version" first: a file of another format or a newer version is not read further.</summary>
-    private static bool ReadHeader(JsonFieldReader root, List<ValidationIssue> errors)
+    private static bool ReadHeader(JsonFieldReader root, List<ValidationIssue> errors, out int fileVersion)
     {
+        fileVersion = DesignFile.CurrentVersion;
         int before = errors.Count;
         string format = root.Text("format");
         if (errors.Count == before && format != DesignFile.FormatName)
@@ -77,13 +78,14 @@ internal static class DesignFileReader
 
         int countAfterFormat = errors.Count;
         int version = root.Integer("version");
-        if (errors.Count == countAfterFormat && version != DesignFile.CurrentVersion)
+        if (errors.Count == countAfterFormat && (version > DesignFile.CurrentVersion || version < DesignFile.OldestVersion))
         {
             errors.Add(new ValidationIssue("$.version", version > DesignFile.CurrentVersion
-                ? $"version {version} is newer than this program reads: it reads version {DesignFile.CurrentVersion}."
-                : $"version {version} does not exist: the only version is {DesignFile.CurrentVersion}."));
+                ? $"version {version} is newer than this program reads: it reads versions {DesignFile.OldestVersion} to {DesignFile.CurrentVersion}."
+                : $"version {version} does not exist: the versions are {DesignFile.OldestVersion} to {DesignFile.CurrentVersion}."));
         }
 
+        fileVersion = version;
         return errors.Count == before;
     }
 
@@ -105,13 +107,13 @@ internal static class DesignFileReader
         return string.Create(CultureInfo.InvariantCulture, $"JSON syntax error at line {line}, column {column}: {text.Trim()}");
     }
 
-    private static Plant? ReadPlant(JsonFieldReader p)
+    private static Plant? ReadPlant(JsonFieldReader p, int version)
     {
         var model = p.Word("model", PlantModelWords);
         switch (model)
         {
             case PlantModel.Buck:
-                var plant = new BuckPlant(ReadPowerStage(p.Object("powerStage")), ReadControl(p.Object("control")), ReadFeedback(p.Object("feedback")));
+                var plant = new BuckPlant(ReadPowerStage(p.Object("powerStage")), ReadControl(p.Object("control"), version), ReadFeedback(p.Object("feedback")));
                 p.Finish("a buck plant");
                 return plant;
             case PlantModel.Custom:
@@ -154,13 +156,39 @@ internal static class DesignFileReader
         return branch;
     }
 
-    private static VoltageModeControl ReadControl(JsonFieldReader k)
+    private static PwmControl ReadControl(JsonFieldReader k, int version)
     {
-        k.Word("scheme", ControlSchemes);
+        var scheme = k.Word("scheme", ControlSchemes, ControlScheme.VoltageMode);
+        k.NeedsVersion("modulatorDelayFractionOfPeriod", version, 2);
+        double delay = k.Number("modulatorDelayS", "s", 0.0);
+        double fraction = k.Number("modulatorDelayFractionOfPeriod", string.Empty, 0.0);
+        if (scheme == ControlScheme.PeakCurrentMode)
+        {
+            k.NeedsVersion("scheme", version, 2);
+            double ri = k.Number("senseGainOhm", "Ohm");
+            var rampFields = k.OptionalObject("ramp");
+            var ramp = CompensationRamp.None;
+            if (rampFields is not null)
+            {
+                var kind = rampFields.Word("kind", RampKinds);
+                double value = kind is CompensationRampKind rk ? rampFields.Number("value", rk == CompensationRampKind.VoltsPerSecond ? "V/s" : string.Empty) : double.NaN;
+                if (kind is null)
+                {
+                    rampFields.Has("value");
+                }
+
+                rampFields.Finish("the compensation ramp");
+                ramp = new CompensationRamp(kind ?? CompensationRampKind.VoltsPerSecond, value);
+            }
+
+            k.Finish("the peak current-mode control");
+            return new PeakCurrentModeControl(ri, ramp, delay, fraction);
+        }
+
         bool feedforward = k.Boolean("inputFeedforward", false);
-        double ramp = feedforward ? k.Number("rampAmplitudeV", "V", 0.0) : k.Number("rampAmplitudeV", "V");
+        double rampV = feedforward ? k.Number("rampAmplitudeV", "V", 0.0) : k.Number("rampAmplitudeV", "V");
         double perVolt = feedforward ? k.Number("feedforwardRampPerVolt", "V/V") : k.Number("feedforwardRampPerVolt", "V/V", 0.0);
-        var control = new VoltageModeControl(ramp, feedforward, perVolt, k.Number("modulatorDelayS", "s", 0.0));
+        var control = new VoltageModeControl(rampV, feedforward, perVolt, delay, fraction);
         k.Finish("the voltage-mode control");
         return control;
     }
@@ -208,7 +236,7 @@ internal static class DesignFileReader
             return factor;
         })];
 
-    private static Compensator? ReadCompensator(JsonFieldReader c)
+    private static Compensator? ReadCompensator(JsonFieldReader c, int version)
     {
         var form = c.Word("form", CompensatorForms);
         var type = c.Word("type", CompensatorTypes);
@@ -250,21 +278,58 @@ internal static class DesignFileReader
                     C2F: Part(c, "c2F", "F", two, because),
                     R3Ohm: Part(c, "r3Ohm", "Ohm", three, because),
                     C3F: Part(c, "c3F", "F", three, because),
-                    RBottomOhm: c.Number("rBottomOhm", "Ohm", 0.0));
+                    RBottomOhm: c.Number("rBottomOhm", "Ohm", 0.0),
+                    Amplifier: ReadOpAmp(c, version));
                 c.Finish("an op-amp network compensator");
                 return type is null ? null : network;
+            case CompensatorForm.Ota:
+                c.NeedsVersion("form", version, 2);
+                var a = c.Object("amplifier");
+                var amplifier = new Transconductance(a.Number("transconductanceS", "S"), a.Number("outputResistanceOhm", "Ohm"));
+                a.Finish("the transconductance amplifier");
+                var ota = new TransconductanceNetwork(type ?? CompensatorType.TypeII, amplifier, c.Number("c1F", "F"), Part(c, "r2Ohm", "Ohm", two, because), Part(c, "c2F", "F", two, because));
+                c.Finish("a transconductance compensator");
+                return type is null ? null : ota;
             default:
                 c.AcceptAll();
                 return null;
         }
     }
 
+    /// <summary>compensator.amplifier of an op-amp network: absent or kind "ideal" for an ideal op-amp (version 2).</summary>
+    private static ErrorAmplifier? ReadOpAmp(JsonFieldReader c, int version)
+    {
+        c.NeedsVersion("amplifier", version, 2);
+        var a = c.OptionalObject("amplifier");
+        if (a is null)
+        {
+            return null;
+        }
+
+        var kind = a.Word("kind", AmplifierKinds);
+        if (kind != AmplifierKind.OpAmp)
+        {
+            if (kind is null)
+            {
+                a.AcceptAll();
+            }
+
+            a.Finish("an ideal op-amp");
+            return kind is null ? null : IdealOpAmp.Instance;
+        }
+
+        var opAmp = new OpAmp(a.Number("openLoopGain", "V/V"), a.Number("gainBandwidthHz", "Hz"), a.NullableNumber("secondPoleHz", "Hz"));
+        a.Finish("an op-amp");
+        return opAmp;
+    }
+
     /// <summary>A part of the op-amp network: required when the type uses it, zero otherwise.</summary>
     private static double Part(JsonFieldReader c, string name, string unit, bool required, string because)
         => required ? c.NullableNumber(name, unit, because) ?? double.NaN : c.Number(name, unit, 0.0);
 
-    private static AnalysisSettings ReadAnalysis(JsonFieldReader a)
+    private static AnalysisSettings ReadAnalysis(JsonFieldReader a, int version)
     {
+        a.NeedsVersion("conductionModel", version, 2);
         var d = new AnalysisSettings();
         var settings = new AnalysisSettings(
             a.Number("startHz", "Hz", d.StartHz),
@@ -276,7 +341,8 @@ internal static class DesignFileReader
             a.Number("loadStepSlewAPerS", "A/s", d.LoadStepSlewAPerS),
             a.Number("referenceStepV", "V", d.ReferenceStepV),
             a.NullableNumber("stepDurationS", "s"),
-            a.Integer("stepSamples", d.StepSamples));
+            a.Integer("stepSamples", d.StepSamples),
+            a.Word("conductionModel", ConductionModels, d.ConductionModel));
         a.Finish("the analysis settings");
         return settings;
     }

@@ -28,10 +28,19 @@ internal static class DesignFileWords
         [("buck", PlantModel.Buck), ("custom", PlantModel.Custom)];
 
     public static readonly IReadOnlyList<(string Word, CompensatorForm Value)> CompensatorForms =
-        [("placement", CompensatorForm.Placement), ("opAmpNetwork", CompensatorForm.OpAmpNetwork)];
+        [("placement", CompensatorForm.Placement), ("opAmpNetwork", CompensatorForm.OpAmpNetwork), ("ota", CompensatorForm.Ota)];
 
     public static readonly IReadOnlyList<(string Word, ControlScheme Value)> ControlSchemes =
-        [("voltageMode", ControlScheme.VoltageMode)];
+        [("voltageMode", ControlScheme.VoltageMode), ("peakCurrentMode", ControlScheme.PeakCurrentMode)];
+
+    public static readonly IReadOnlyList<(string Word, CompensationRampKind Value)> RampKinds =
+        [("slope", CompensationRampKind.VoltsPerSecond), ("multipleOfOffSlope", CompensationRampKind.MultipleOfOffSlope), ("mc", CompensationRampKind.Mc)];
+
+    public static readonly IReadOnlyList<(string Word, AmplifierKind Value)> AmplifierKinds =
+        [("ideal", AmplifierKind.Ideal), ("opAmp", AmplifierKind.OpAmp)];
+
+    public static readonly IReadOnlyList<(string Word, ConductionModelChoice Value)> ConductionModels =
+        [("automatic", ConductionModelChoice.Automatic), ("ccm", ConductionModelChoice.Continuous), ("dcm", ConductionModelChoice.Discontinuous)];
 
     /// <summary>plant.model.</summary>
     public enum PlantModel
@@ -51,13 +60,29 @@ internal static class DesignFileWords
 
         /// <summary>An op-amp network given by its parts.</summary>
         OpAmpNetwork,
+
+        /// <summary>A transconductance amplifier with its network to ground (version 2).</summary>
+        Ota,
+    }
+
+    /// <summary>compensator.amplifier.kind of an op-amp network.</summary>
+    public enum AmplifierKind
+    {
+        /// <summary>Infinite gain and bandwidth.</summary>
+        Ideal,
+
+        /// <summary>Finite open-loop gain and gain-bandwidth (version 2).</summary>
+        OpAmp,
     }
 
     /// <summary>plant.control.scheme.</summary>
     public enum ControlScheme
     {
-        /// <summary>Voltage-mode PWM: the only modulator the buck model has so far.</summary>
+        /// <summary>Voltage-mode PWM.</summary>
         VoltageMode,
+
+        /// <summary>Peak current mode (version 2).</summary>
+        PeakCurrentMode,
     }
 
     /// <summary>The word for a value.</summary>

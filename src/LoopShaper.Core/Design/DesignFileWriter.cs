@@ -121,13 +121,31 @@ internal sealed class DesignFileWriter
         Number("maxDutyCycle", s.MaxDutyCycle);
     }
 
-    private void Control(VoltageModeControl k)
+    private void Control(PwmControl control)
     {
-        _w.WriteString("scheme", WordOf(ControlSchemes, ControlScheme.VoltageMode));
-        Number("rampAmplitudeV", k.RampAmplitudeV);
-        _w.WriteBoolean("inputFeedforward", k.InputFeedforward);
-        Number("feedforwardRampPerVolt", k.FeedforwardRampPerVolt);
-        Number("modulatorDelayS", k.ModulatorDelayS);
+        switch (control)
+        {
+            case VoltageModeControl k:
+                _w.WriteString("scheme", WordOf(ControlSchemes, ControlScheme.VoltageMode));
+                Number("rampAmplitudeV", k.RampAmplitudeV);
+                _w.WriteBoolean("inputFeedforward", k.InputFeedforward);
+                Number("feedforwardRampPerVolt", k.FeedforwardRampPerVolt);
+                break;
+            case PeakCurrentModeControl p:
+                _w.WriteString("scheme", WordOf(ControlSchemes, ControlScheme.PeakCurrentMode));
+                Number("senseGainOhm", p.SenseGainOhm);
+                Object("ramp", () =>
+                {
+                    _w.WriteString("kind", WordOf(RampKinds, p.Ramp.Kind));
+                    Number("value", p.Ramp.Value);
+                });
+                break;
+            default:
+                throw new ArgumentException($"The control scheme {control.GetType().Name} has no design-file form.", nameof(control));
+        }
+
+        Number("modulatorDelayS", control.ModulatorDelayS);
+        Number("modulatorDelayFractionOfPeriod", control.ModulatorDelayFractionOfPeriod);
     }
 
     /// <summary>The fields of the other form are written only when they differ from what the reader assumes when they are absent.</summary>
@@ -208,6 +226,36 @@ internal sealed class DesignFileWriter
                 Number("r3Ohm", n.R3Ohm);
                 Number("c3F", n.C3F);
                 Number("rBottomOhm", n.RBottomOhm);
+                switch (n.Amplifier)
+                {
+                    case OpAmp a:
+                        Object("amplifier", () =>
+                        {
+                            _w.WriteString("kind", WordOf(AmplifierKinds, AmplifierKind.OpAmp));
+                            Number("openLoopGain", a.OpenLoopGain);
+                            Number("gainBandwidthHz", a.GainBandwidthHz);
+                            NullableNumber("secondPoleHz", a.SecondPoleHz);
+                        });
+                        break;
+                    case IdealOpAmp:
+                        Object("amplifier", () => _w.WriteString("kind", WordOf(AmplifierKinds, AmplifierKind.Ideal)));
+                        break;
+                    case Transconductance:
+                        throw new ArgumentException("An op-amp network cannot carry a transconductance amplifier: use a TransconductanceNetwork.", nameof(compensator));
+                }
+
+                break;
+            case TransconductanceNetwork g:
+                _w.WriteString("form", WordOf(CompensatorForms, CompensatorForm.Ota));
+                _w.WriteString("type", WordOf(CompensatorTypes, g.Type));
+                Object("amplifier", () =>
+                {
+                    Number("transconductanceS", g.Amplifier.TransconductanceS);
+                    Number("outputResistanceOhm", g.Amplifier.OutputResistanceOhm);
+                });
+                Number("c1F", g.C1F);
+                Number("r2Ohm", g.R2Ohm);
+                Number("c2F", g.C2F);
                 break;
             default:
                 throw new ArgumentException($"The compensator kind {compensator.GetType().Name} has no design-file form.", nameof(compensator));
@@ -226,6 +274,7 @@ internal sealed class DesignFileWriter
         Number("referenceStepV", a.ReferenceStepV);
         NullableNumber("stepDurationS", a.StepDurationS);
         _w.WriteNumber("stepSamples", a.StepSamples);
+        _w.WriteString("conductionModel", WordOf(ConductionModels, a.ConductionModel));
     }
 
     private void Criteria(DesignCriteria k)

@@ -66,6 +66,15 @@ internal sealed class JsonFieldReader
         return !_silent && _element.TryGetProperty(name, out _);
     }
 
+    /// <summary>Records an error when the field is present in a file older than the version that introduced it.</summary>
+    public void NeedsVersion(string name, int fileVersion, int introducedIn)
+    {
+        if (fileVersion < introducedIn && !_silent && _element.TryGetProperty(name, out _))
+        {
+            Error(Child(Path, name), $"is a field of design-file version {introducedIn}; this file says \"version\": {fileVersion}. Set \"version\": {introducedIn} to use it.");
+        }
+    }
+
     /// <summary>Marks every field as known, for an object whose allowed fields cannot be told (an unknown kind word).</summary>
     public void AcceptAll()
     {

@@ -62,13 +62,19 @@ public static class SpiceNetlist
             throw new ArgumentException("The averaged-loop netlist is written for a buck power stage; a custom plant has no circuit to export.", nameof(design));
         }
 
+        if (buck.Control is not VoltageModeControl control)
+        {
+            throw new ArgumentException("The averaged-loop netlist is written for a voltage-mode buck; peak current mode has no such circuit here.", nameof(design));
+        }
+
         var n = network ?? design.Compensator as OpAmpNetwork
             ?? throw new ArgumentException("The design's compensator is a placement, not parts: synthesise the parts first and pass the network.", nameof(network));
         var s = Check(sweep, amplifierGain);
         var stage = buck.PowerStage;
         var at = DesignAnalyzer.ConditionOf(stage, design.Analysis);
-        var op = BuckOperatingPoint.Solve(stage, at);
-        double vm = buck.Control.RampAt(at.InputVoltageV);
+        var op = BuckOperatingPoint.SolveContinuous(stage, at);
+        double vm = control.RampAt(at.InputVoltageV);
+        double td = control.TotalDelayS(stage.SwitchingFrequencyHz);
         double d = op.DutyCycle;
         double rsw = (d * stage.HighSideOnResistanceOhm) + ((1 - d) * stage.Rectifier.OnResistanceOhm);
         var inv = CultureInfo.InvariantCulture;
@@ -83,12 +89,12 @@ public static class SpiceNetlist
         w.Comment("injected control voltage at the modulator input (where the loop is broken)");
         w.Line("Vx x 0 DC 0 AC 1");
         string modIn = "x";
-        if (buck.Control.ModulatorDelayS > 0)
+        if (td > 0)
         {
-            w.Comment($"modulator delay {Format(buck.Control.ModulatorDelayS, "s", 4)}: line matched at both ends, v(xd) = v(x) exp(-s Td)");
+            w.Comment($"modulator delay {Format(td, "s", 4)}: line matched at both ends, v(xd) = v(x) exp(-s Td)");
             w.Line("Exd xd1 0 x 0 2");
             w.Line($"Rxd1 xd1 xd2 {N(DelayLineOhm)}");
-            w.Line($"Txd xd2 0 xd 0 Z0={N(DelayLineOhm)} TD={N(buck.Control.ModulatorDelayS)}");
+            w.Line($"Txd xd2 0 xd 0 Z0={N(DelayLineOhm)} TD={N(td)}");
             w.Line($"Rxd2 xd 0 {N(DelayLineOhm)}");
             modIn = "xd";
         }

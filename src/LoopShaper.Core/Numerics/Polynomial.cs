@@ -134,7 +134,10 @@ public sealed class Polynomial
 
     /// <summary>
     /// Roots of the polynomial (eigenvalues of the companion matrix, MathNet FindRoots.Polynomial),
-    /// after dividing out the roots at x = 0, which are returned as exact zeros.
+    /// after dividing out the roots at x = 0, which are returned as exact zeros. The variable is first scaled,
+    /// x = sigma y with sigma = |c_low / c_high|^(1/n) (the geometric mean of the root magnitudes), and the coefficients
+    /// normalised, so that roots spread over many decades keep their accuracy (the unscaled companion matrix loses
+    /// them); each root is then polished by Newton steps on the scaled polynomial while they reduce |p(y)|.
     /// </summary>
     public ImmutableArray<Complex> Roots()
     {
@@ -148,9 +151,65 @@ public sealed class Polynomial
         }
         else if (rest.Length > 2)
         {
-            roots.AddRange(MathNet.Numerics.FindRoots.Polynomial(rest));
+            int n = rest.Length - 1;
+            double sigma = Math.Pow(Math.Abs(rest[0] / rest[n]), 1.0 / n);
+            if (!(sigma > 0) || !double.IsFinite(sigma))
+            {
+                sigma = 1.0;
+            }
+
+            var y = new double[rest.Length];
+            double scale = 1.0, max = 0.0;
+            for (int k = 0; k < y.Length; k++)
+            {
+                y[k] = rest[k] * scale;
+                max = Math.Max(max, Math.Abs(y[k]));
+                scale *= sigma;
+            }
+
+            for (int k = 0; k < y.Length; k++)
+            {
+                y[k] /= max;
+            }
+
+            var scaled = new Polynomial(y);
+            var derivative = new Polynomial(y.Skip(1).Select((c, k) => c * (k + 1)));
+            foreach (var r0 in MathNet.Numerics.FindRoots.Polynomial(y))
+            {
+                roots.Add(Polish(scaled, derivative, r0) * sigma);
+            }
         }
 
         return [.. roots];
+    }
+
+    private static Complex Polish(Polynomial p, Polynomial dp, Complex root)
+    {
+        var value = p.Evaluate(root);
+        for (int i = 0; i < 3; i++)
+        {
+            var slope = dp.Evaluate(root);
+            if (slope == Complex.Zero)
+            {
+                break;
+            }
+
+            var next = root - (value / slope);
+            // Keep a real root real: conjugate pairing happens later on the exact imaginary parts.
+            if (root.Imaginary == 0)
+            {
+                next = new Complex(next.Real, 0);
+            }
+
+            var nextValue = p.Evaluate(next);
+            if (!(Complex.Abs(nextValue) < Complex.Abs(value)))
+            {
+                break;
+            }
+
+            (root, value) = (next, nextValue);
+        }
+
+        return root;
     }
 }

@@ -9,11 +9,23 @@ public static class BuckOperatingPoint
 {
     private const string SourceLosses = "Erickson & Maksimovic, 2nd ed., ch. 3 (inductor volt-second balance with conduction losses)";
 
+    private const string SourceDcm = "Erickson & Maksimovic, 2nd ed., sec. 5.2 (buck in DCM: volt-second balance with the idle interval)";
+
     /// <summary>
-    /// Solves volt-second balance on the inductor:
-    /// D (Vin - I Ron) - D' (Vf + I Rlow) - I DCR = Vout, so D = (Vout + Vf + I (DCR + Rlow)) / (Vin + Vf - I (Ron - Rlow)).
+    /// The steady state at one condition: CCM volt-second balance, or, when a diode rectifier stops conducting below the
+    /// boundary load (K = 2L/(R Ts) &lt; Kcrit = 1 - D, Erickson and Maksimovic, 2nd ed., sec. 5.1), the DCM solution.
     /// </summary>
     public static OperatingPoint Solve(BuckPowerStage stage, OperatingCondition at)
+    {
+        var ccm = SolveContinuous(stage, at);
+        return ccm.Mode == ConductionMode.Discontinuous && at.LoadCurrentA > 0 ? SolveDiscontinuous(stage, at, ccm) : ccm;
+    }
+
+    /// <summary>
+    /// CCM volt-second balance on the inductor (the mode reported is still the physical one):
+    /// D (Vin - I Ron) - D' (Vf + I Rlow) - I DCR = Vout, so D = (Vout + Vf + I (DCR + Rlow)) / (Vin + Vf - I (Ron - Rlow)).
+    /// </summary>
+    public static OperatingPoint SolveContinuous(BuckPowerStage stage, OperatingCondition at)
     {
         double vin = at.InputVoltageV, vout = stage.OutputVoltageV, i = at.LoadCurrentA;
         double ron = stage.HighSideOnResistanceOhm, rlow = stage.Rectifier.OnResistanceOhm, vf = stage.Rectifier.ForwardDropV;
@@ -24,8 +36,9 @@ public static class BuckOperatingPoint
         double dp = 1 - d;
         double rs = (d * ron) + (dp * rlow) + dcr;
 
-        // Off-interval inductor voltage: Vout + Vf + I (Rlow + DCR), for D' Ts.
+        // Off-interval inductor voltage: Vout + Vf + I (Rlow + DCR), for D' Ts; on-interval: Vin - Vout - I (Ron + DCR).
         double vOff = vout + vf + (i * (rlow + dcr));
+        double vOn = vin - vout - (i * (ron + dcr));
         double ripple = vOff * dp / (l * fs);
         double? rLoad = i > 0 ? vout / i : null;
         double boundary = ripple / 2;
@@ -47,27 +60,89 @@ public static class BuckOperatingPoint
             new("Output ripple voltage", "dV = pk-pk of the triangular ripple current through Zc || R (48 harmonics)", $"dI = {Format(ripple, "A")}, fs = {Format(fs, "Hz")}", Format(vRipple, "V") + " pk-pk", "Fourier series of the inductor ripple; common practice, no source"),
         };
 
-        return new OperatingPoint(at, d, dIdeal, rLoad, ripple, i + (ripple / 2), i - (ripple / 2), vRipple, mode, boundary, veff, rs, [.. steps]);
+        return new OperatingPoint(at, d, dIdeal, rLoad, ripple, i + (ripple / 2), i - (ripple / 2), vRipple, mode, boundary, veff, rs, [.. steps])
+        {
+            OnIntervalInductorVoltageV = vOn,
+            OffIntervalInductorVoltageV = vOff,
+        };
+    }
+
+    /// <summary>
+    /// The DCM steady state of a diode rectifier, conduction losses neglected apart from the diode drop (at loads below
+    /// the boundary the I R drops are small beside Vout). Volt-second balance D (Vin - Vout) = D2 (Vout + Vf) and the
+    /// load current I = Ipk (D + D2) / 2 with Ipk = (Vin - Vout) D Ts / L give
+    /// D = sqrt(2 L I (Vout + Vf) / (Ts (Vin - Vout) (Vin + Vf))); with Vf = 0 this is M = 2 / (1 + sqrt(1 + 4K / D^2)),
+    /// K = 2L / (R Ts) (Erickson and Maksimovic, 2nd ed., sec. 5.2).
+    /// </summary>
+    private static OperatingPoint SolveDiscontinuous(BuckPowerStage stage, OperatingCondition at, OperatingPoint ccm)
+    {
+        double vin = at.InputVoltageV, vout = stage.OutputVoltageV, i = at.LoadCurrentA, vf = stage.Rectifier.ForwardDropV;
+        double l = stage.Inductor.InductanceH, fs = stage.SwitchingFrequencyHz, ts = 1.0 / fs;
+        double vOn = vin - vout, vOff = vout + vf;
+        double d = Math.Sqrt(2 * l * i * vOff / (ts * vOn * (vin + vf)));
+        double d2 = d * vOn / vOff;
+        double ipk = vOn * d * ts / l;
+        double r = vout / i;
+        double k = 2 * l / (r * ts);
+        double mLossless = 2.0 / (1.0 + Math.Sqrt(1.0 + (4.0 * k / (d * d))));
+        double vRipple = OutputRipple(stage, d, d2, ipk, r);
+
+        var steps = new List<Derivation>(ccm.Derivations.Take(2))
+        {
+            new("Conduction mode", "DCM when K = 2L / (R Ts) < Kcrit = 1 - D (diode rectifier)",
+                $"K = 2 x {Format(l, "H")} / ({Format(r, "Ohm")} x {Format(ts, "s")}) = {k:F4}, Kcrit = 1 - {ccm.DutyCycle:F4} = {1 - ccm.DutyCycle:F4}",
+                $"DCM below {Format(ccm.BoundaryLoadCurrentA, "A")}", "Erickson & Maksimovic, 2nd ed., sec. 5.1"),
+            new("DCM duty cycle", "D = sqrt(2 L I (Vout + Vf) / (Ts (Vin - Vout) (Vin + Vf)))",
+                $"D = sqrt(2 x {Format(l, "H")} x {Format(i, "A")} x {Format(vOff, "V")} / ({Format(ts, "s")} x {Format(vOn, "V")} x {Format(vin + vf, "V")}))",
+                $"{d:F4}", SourceDcm + "; conduction losses other than Vf neglected"),
+            new("Rectifier conduction interval", "D2 = D (Vin - Vout) / (Vout + Vf)", $"D2 = {d:F4} x {Format(vOn, "V")} / {Format(vOff, "V")}", $"{d2:F4}", SourceDcm),
+            new("Peak inductor current", "Ipk = (Vin - Vout) D Ts / L", $"Ipk = {Format(vOn, "V")} x {d:F4} x {Format(ts, "s")} / {Format(l, "H")}", Format(ipk, "A"), SourceDcm),
+            new("Conversion ratio without the diode drop (check)", "M = 2 / (1 + sqrt(1 + 4K / D^2))", $"M = 2 / (1 + sqrt(1 + 4 x {k:F4} / {d:F4}^2))", $"{mLossless:F4} (Vout / Vin = {vout / vin:F4})", "Erickson & Maksimovic, 2nd ed., sec. 5.2"),
+            new("Output ripple voltage", "dV = pk-pk of the DCM current pulse (rise D, fall D2) through Zc || R (48 harmonics)", $"Ipk = {Format(ipk, "A")}, fs = {Format(fs, "Hz")}", Format(vRipple, "V") + " pk-pk", "Fourier series of the inductor current; common practice, no source"),
+        };
+        steps.AddRange(ccm.Derivations.Skip(5).Take(2));
+
+        return ccm with
+        {
+            DutyCycle = d,
+            RippleCurrentApp = ipk,
+            PeakInductorCurrentA = ipk,
+            ValleyInductorCurrentA = 0.0,
+            OutputRippleVpp = vRipple,
+            Derivations = [.. steps],
+            ContinuousDutyCycle = ccm.DutyCycle,
+            RectifierConductionFraction = d2,
+            OnIntervalInductorVoltageV = vOn,
+            OffIntervalInductorVoltageV = vOff,
+        };
     }
 
     /// <summary>Peak-to-peak of the triangular inductor ripple (rising for D Ts) driven through the output bank in parallel with the load.</summary>
     public static double OutputRipple(BuckPowerStage stage, double d, double rippleApp, double? rLoad)
+        => OutputRipple(stage, Math.Clamp(d, 1e-3, 1 - 1e-3), 1 - Math.Clamp(d, 1e-3, 1 - 1e-3), rippleApp, rLoad);
+
+    /// <summary>
+    /// Peak-to-peak output ripple for an inductor current that rises for a Ts and falls for b Ts (a + b = 1 in CCM,
+    /// a + b &lt; 1 with an idle interval in DCM), driven through the output bank in parallel with the load.
+    /// </summary>
+    internal static double OutputRipple(BuckPowerStage stage, double a, double b, double rippleApp, double? rLoad)
     {
         const int harmonics = 48, samples = 128;
         double w = 2 * Math.PI * stage.SwitchingFrequencyHz;
-        d = Math.Clamp(d, 1e-3, 1 - 1e-3);
         var v = new double[samples];
         for (int k = 1; k <= harmonics; k++)
         {
-            // Complex Fourier coefficient of a zero-mean triangle of peak-to-peak A rising over D T:
-            // c_k = A (e^{-j 2 pi k D} - 1) / (4 pi^2 k^2 D (1 - D)) (direct integration, our derivation).
-            double x = 2 * Math.PI * k * d;
-            var ck = rippleApp * (new Complex(Math.Cos(x), -Math.Sin(x)) - 1) / (4 * Math.PI * Math.PI * k * k * d * (1 - d));
+            // Complex Fourier coefficient of a triangle of height A rising over a T and falling over b T, from the jumps
+            // of its second derivative: c_k = -A / (4 pi^2 k^2) (1/a - (1/a + 1/b) e^{-j 2 pi k a} + (1/b) e^{-j 2 pi k (a + b)})
+            // (direct integration, our derivation; for a + b = 1 it is A (e^{-j 2 pi k a} - 1) / (4 pi^2 k^2 a (1 - a))).
+            var e1 = Complex.FromPolarCoordinates(1.0, -2 * Math.PI * k * a);
+            var e2 = Complex.FromPolarCoordinates(1.0, -2 * Math.PI * k * (a + b));
+            var ck = -rippleApp / (4 * Math.PI * Math.PI * k * k) * ((1.0 / a) - (((1.0 / a) + (1.0 / b)) * e1) + (e2 / b));
             var y = new Complex(rLoad is double r ? 1.0 / r : 0.0, 0);
             var s = new Complex(0, k * w);
-            foreach (var b in stage.OutputCapacitors)
+            foreach (var br in stage.OutputCapacitors)
             {
-                y += s * b.TotalCapacitanceF / (1 + (s * b.TotalEsrOhm * b.TotalCapacitanceF) + (s * s * b.TotalEslH * b.TotalCapacitanceF));
+                y += s * br.TotalCapacitanceF / (1 + (s * br.TotalEsrOhm * br.TotalCapacitanceF) + (s * s * br.TotalEslH * br.TotalCapacitanceF));
             }
 
             var vk = 2.0 * ck / y;

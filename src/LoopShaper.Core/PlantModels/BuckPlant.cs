@@ -1,7 +1,7 @@
 namespace LoopShaper.Core.PlantModels;
 
-/// <summary>A voltage-mode buck: power stage, modulator and feedback divider.</summary>
+/// <summary>A buck converter: power stage, modulator control (voltage mode or peak current mode) and feedback divider.</summary>
 /// <param name="PowerStage">The power stage.</param>
-/// <param name="Control">The PWM modulator.</param>
+/// <param name="Control">The PWM modulator: <see cref="VoltageModeControl"/> or <see cref="PeakCurrentModeControl"/>.</param>
 /// <param name="Feedback">The output divider and reference.</param>
-public sealed record BuckPlant(BuckPowerStage PowerStage, VoltageModeControl Control, FeedbackDivider Feedback) : Plant;
+public sealed record BuckPlant(BuckPowerStage PowerStage, PwmControl Control, FeedbackDivider Feedback) : Plant;

@@ -9,7 +9,13 @@ namespace LoopShaper.Core.PlantModels;
 /// <param name="InputFeedforward">True when the ramp amplitude follows the input voltage: Vm = k Vin.</param>
 /// <param name="FeedforwardRampPerVolt">k in Vm = k Vin, V/V (with feedforward).</param>
 /// <param name="ModulatorDelayS">Pure delay of the modulator, seconds.</param>
-public sealed record VoltageModeControl(double RampAmplitudeV, bool InputFeedforward = false, double FeedforwardRampPerVolt = 0.0, double ModulatorDelayS = 0.0)
+/// <param name="ModulatorDelayFractionOfPeriod">Further pure delay as a fraction of the switching period.</param>
+public sealed record VoltageModeControl(
+    double RampAmplitudeV,
+    bool InputFeedforward = false,
+    double FeedforwardRampPerVolt = 0.0,
+    double ModulatorDelayS = 0.0,
+    double ModulatorDelayFractionOfPeriod = 0.0) : PwmControl(ModulatorDelayS, ModulatorDelayFractionOfPeriod)
 {
     /// <summary>The ramp amplitude at an input voltage, V.</summary>
     public double RampAt(double inputVoltageV) => InputFeedforward ? FeedforwardRampPerVolt * inputVoltageV : RampAmplitudeV;

@@ -19,8 +19,8 @@ public sealed record AnalysisReport
     /// <summary>Always <see cref="FormatName"/>.</summary>
     public string Format { get; init; } = FormatName;
 
-    /// <summary>Version of the report layout.</summary>
-    public int Version { get; init; } = 1;
+    /// <summary>Version of the report layout (2 added the control scheme, the small-signal model, peak current mode, the corners and the ideal-amplifier margins).</summary>
+    public int Version { get; init; } = 2;
 
     /// <summary>Name of the design.</summary>
     public required string Name { get; init; }
@@ -30,6 +30,15 @@ public sealed record AnalysisReport
 
     /// <summary>"buck" or "custom".</summary>
     public required string PlantModel { get; init; }
+
+    /// <summary>"voltageMode" or "peakCurrentMode" for a buck; null for a custom plant.</summary>
+    public string? ControlScheme { get; init; }
+
+    /// <summary>
+    /// The small-signal model of the main analysis: "voltageModeCcm", "voltageModeDcm", "peakCurrentModeCcm",
+    /// "peakCurrentModeDcm" or "custom"; null when the design was not analysed.
+    /// </summary>
+    public string? SmallSignalModel { get; init; }
 
     /// <summary>True when the design had no input errors and was analysed.</summary>
     public required bool Valid { get; init; }
@@ -48,6 +57,15 @@ public sealed record AnalysisReport
 
     /// <summary>Stability margins.</summary>
     public MarginsReport? Margins { get; init; }
+
+    /// <summary>Peak current-mode figures (Qp, slopes, ramp for Qp = 1, current loop); null in voltage mode.</summary>
+    public CurrentModeReport? CurrentMode { get; init; }
+
+    /// <summary>Margins with an ideal amplifier, when the design's amplifier is not ideal.</summary>
+    public IdealAmplifierReport? IdealAmplifier { get; init; }
+
+    /// <summary>The loop at every input and load corner, with the model each used (power-stage plants only).</summary>
+    public ImmutableArray<CornerReport> Corners { get; init; } = [];
 
     /// <summary>Reference step.</summary>
     public StepReport? ReferenceStep { get; init; }
@@ -80,6 +98,11 @@ public sealed record AnalysisReport
             OperatingPoint = analysis.OperatingPoint is { } op ? OperatingPointOf(op, d) : null,
             Compensator = analysis.ResolvedPlacement is { } p ? CompensatorOf(p) : null,
             Margins = analysis.Margins is { } m ? MarginsOf(m) : null,
+            ControlScheme = d.Plant is BuckPlant bp ? (bp.Control is PeakCurrentModeControl ? "peakCurrentMode" : "voltageMode") : null,
+            SmallSignalModel = analysis.Model is SmallSignalModel sm ? ModelWord(sm) : null,
+            CurrentMode = analysis.CurrentMode is { } cm ? CurrentModeOf(cm, analysis.CurrentLoopMargins) : null,
+            IdealAmplifier = analysis.IdealAmplifierMargins is { } im ? new IdealAmplifierReport(Finite(im.CrossoverHz), Finite(im.PhaseMarginDeg), Finite(im.UpperGainMarginDb)) : null,
+            Corners = [.. analysis.Corners.Select(CornerOf)],
             ReferenceStep = analysis.ReferenceStep is { } r ? StepOf(r, stepV: d.Analysis.ReferenceStepV, stepA: null, slew: null) : null,
             LoadStep = analysis.LoadStep is { } l ? StepOf(l, stepV: null, stepA: d.Analysis.LoadStepA, slew: d.Analysis.LoadStepSlewAPerS) : null,
             Criteria = [.. analysis.Criteria.Select(c => new CriterionReport(c.Name, IssueReport.PathOf(c.Field), c.Passed, c.Actual, c.Limit))],
@@ -109,6 +132,48 @@ public sealed record AnalysisReport
             Finite(op.EffectiveInputVoltageV),
             Finite(op.SeriesResistanceOhm));
     }
+
+    /// <summary>The report's word for a small-signal model.</summary>
+    public static string ModelWord(SmallSignalModel model) => model switch
+    {
+        PlantModels.SmallSignalModel.VoltageModeContinuous => "voltageModeCcm",
+        PlantModels.SmallSignalModel.VoltageModeDiscontinuous => "voltageModeDcm",
+        PlantModels.SmallSignalModel.PeakCurrentModeContinuous => "peakCurrentModeCcm",
+        PlantModels.SmallSignalModel.PeakCurrentModeDiscontinuous => "peakCurrentModeDcm",
+        _ => "custom",
+    };
+
+    private static CurrentModeReport CurrentModeOf(PeakCurrentModeFigures f, StabilityMargins? ti) => new(
+        Finite(f.SenseGainOhm),
+        Finite(f.OnSlopeVPerS),
+        Finite(f.OffSlopeVPerS),
+        Finite(f.RampSlopeVPerS),
+        Finite(f.Mc),
+        Finite(f.ModulatorGainPerV),
+        Finite(f.FeedforwardGainKf),
+        Finite(f.OutputFeedbackGainKr),
+        f.IsDiscontinuous ? null : Finite(f.SamplingPoleHz),
+        Finite(f.Qp),
+        f.IsSubharmonicallyUnstable,
+        f.IsDiscontinuous ? null : Finite(f.SuggestedMcForUnityQp),
+        f.IsDiscontinuous ? null : Finite(f.SuggestedRampForUnityQpVPerS),
+        Finite(ti?.CrossoverHz),
+        Finite(ti?.PhaseMarginDeg));
+
+    private static CornerReport CornerOf(CornerResult c) => new(
+        c.Input switch { InputCorner.Min => "min", InputCorner.Max => "max", _ => "nominal" },
+        c.Load == LoadCorner.Min ? "min" : "max",
+        Finite(c.Condition.InputVoltageV),
+        Finite(c.Condition.LoadCurrentA),
+        c.Mode == ConductionMode.Continuous ? "continuous" : "discontinuous",
+        c.Model is SmallSignalModel m ? ModelWord(m) : null,
+        Finite(c.DutyCycle),
+        Finite(c.CrossoverHz),
+        Finite(c.PhaseMarginDeg),
+        Finite(c.GainMarginDb),
+        c.IsClosedLoopStable,
+        Finite(c.Qp),
+        c.Note);
 
     private static CompensatorReport CompensatorOf(CompensatorPlacement p) => new(
         p.Type switch { CompensatorType.TypeI => "typeI", CompensatorType.TypeII => "typeII", _ => "typeIII" },

@@ -36,6 +36,16 @@ public static class AnalysisReportText
             OperatingPoint(t, op);
         }
 
+        if (report.SmallSignalModel is { } model)
+        {
+            Line(t, "small-signal model", ModelText(model));
+        }
+
+        if (report.CurrentMode is { } cm)
+        {
+            CurrentMode(t, cm);
+        }
+
         if (report.Compensator is { } c)
         {
             Compensator(t, c);
@@ -44,6 +54,19 @@ public static class AnalysisReportText
         if (report.Margins is { } m)
         {
             Margins(t, m);
+        }
+
+        if (report.IdealAmplifier is { } ia)
+        {
+            Section(t, "With an ideal amplifier instead");
+            Line(t, "crossover", ia.CrossoverHz is null ? None : Q(ia.CrossoverHz, "Hz"));
+            Line(t, "phase margin", ia.PhaseMarginDeg is null ? None : F(ia.PhaseMarginDeg, "F1") + " deg");
+            Line(t, "gain margin", ia.GainMarginDb is null ? None : F(ia.GainMarginDb, "F1") + " dB");
+        }
+
+        if (!report.Corners.IsDefaultOrEmpty)
+        {
+            Corners(t, report);
         }
 
         if (report.ReferenceStep is { } r)
@@ -103,6 +126,50 @@ public static class AnalysisReportText
         Line(t, "load resistance", op.LoadResistanceOhm is null ? "no load" : Q(op.LoadResistanceOhm, "Ohm"));
         Line(t, "effective input voltage", Q(op.EffectiveInputVoltageV, "V"));
         Line(t, "series resistance", Q(op.SeriesResistanceOhm, "Ohm"));
+    }
+
+    /// <summary>The model in words.</summary>
+    private static string ModelText(string word) => word switch
+    {
+        "voltageModeCcm" => "voltage mode, CCM (averaged model, Erickson & Maksimovic ch. 7-8)",
+        "voltageModeDcm" => "voltage mode, DCM (full-order averaged model, Sun et al. 2001)",
+        "peakCurrentModeCcm" => "peak current mode, CCM (Ridley 1991)",
+        "peakCurrentModeDcm" => "peak current mode, DCM (full-order DCM model with the peak-current law)",
+        _ => "custom plant",
+    };
+
+    private static void CurrentMode(StringBuilder t, CurrentModeReport c)
+    {
+        Section(t, "Peak current mode");
+        Line(t, "sense gain Ri", Q(c.SenseGainOhm, "Ohm"));
+        Line(t, "slopes Sn / Sf / Se", $"{Q(c.OnSlopeVPerS, "V/s")} / {Q(c.OffSlopeVPerS, "V/s")} / {Q(c.RampSlopeVPerS, "V/s")}");
+        Line(t, "mc", F(c.Mc, "F3"));
+        Line(t, "modulator gain Fm", Q(c.ModulatorGainPerV, "1/V"));
+        Line(t, "kf / kr", $"{F(c.Kf, "G4")} / {F(c.Kr, "G4")}");
+        if (c.SamplingPoleHz is not null)
+        {
+            Line(t, "sampling double pole", Q(c.SamplingPoleHz, "Hz"));
+            Line(t, "Qp", c.SubharmonicallyUnstable ? "none: mc D' - 0.5 <= 0, SUBHARMONIC OSCILLATION" : F(c.Qp, "F3"));
+            Line(t, "ramp for Qp = 1", c.SuggestedRampForUnitQpVPerS is > 0 ? $"Se = {Q(c.SuggestedRampForUnitQpVPerS, "V/s")} (mc = {F(c.SuggestedMcForUnitQp, "F3")})" : "none needed");
+            Line(t, "current-loop crossover", c.CurrentLoopCrossoverHz is null ? None : $"{Q(c.CurrentLoopCrossoverHz, "Hz")}, phase margin {F(c.CurrentLoopPhaseMarginDeg, "F1")} deg");
+        }
+        else
+        {
+            Line(t, "Qp", "none in DCM (the current starts from zero each period)");
+        }
+    }
+
+    private static void Corners(StringBuilder t, AnalysisReport report)
+    {
+        Section(t, "Corners (input / load)");
+        foreach (var c in report.Corners)
+        {
+            string where = $"{c.Input}/{c.Load}".PadRight(12) + $" {Q(c.InputVoltageV, "V")}, {Q(c.LoadCurrentA, "A")}".PadRight(20);
+            string what = c.Model is null
+                ? c.Note ?? "not analysed"
+                : $"{c.Model}, D {F(c.DutyCycle, "F3")}, fc {(c.CrossoverHz is null ? "none" : Q(c.CrossoverHz, "Hz"))}, PM {(c.PhaseMarginDeg is null ? "none" : F(c.PhaseMarginDeg, "F1") + " deg")}, GM {(c.GainMarginDb is null ? "none" : F(c.GainMarginDb, "F1") + " dB")}{(c.Qp is null ? "" : ", Qp " + F(c.Qp, "F2"))}{(c.ClosedLoopStable == false ? ", UNSTABLE" : "")}{(c.Note is null ? "" : " (" + c.Note + ")")}";
+            t.Append("  ").Append(where).Append(' ').Append(what).Append('\n');
+        }
     }
 
     private static void Compensator(StringBuilder t, CompensatorReport c)

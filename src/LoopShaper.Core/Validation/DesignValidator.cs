@@ -21,7 +21,7 @@ public static class DesignValidator
         switch (design.Plant)
         {
             case BuckPlant buck:
-                ValidateBuck(c, buck, design.Compensator);
+                ValidateBuck(c, buck, design.Compensator, design.Analysis);
                 break;
             case CustomPlant custom:
                 ValidateCustom(c, custom);
@@ -39,7 +39,7 @@ public static class DesignValidator
         return c.Issues;
     }
 
-    private static void ValidateBuck(Checks c, BuckPlant buck, Compensator compensator)
+    private static void ValidateBuck(Checks c, BuckPlant buck, Compensator compensator, AnalysisSettings analysis)
     {
         const string p = "plant.powerStage";
         var s = buck.PowerStage;
@@ -120,18 +120,12 @@ public static class DesignValidator
             }
         }
 
-        const string k = "plant.control";
-        var m = buck.Control;
-        if (m.InputFeedforward)
+        bool stageOk = vinOk && voutOk && loadOk && lOk && swOk && fsOk;
+        ValidateControl(c, buck, stageOk);
+        if (stageOk)
         {
-            c.InRange($"{k}.feedforwardRampPerVolt", m.FeedforwardRampPerVolt, 1e-4, 10, "V/V");
+            ValidateConductionModel(c, s, analysis);
         }
-        else
-        {
-            c.InRange($"{k}.rampAmplitudeV", m.RampAmplitudeV, 1e-3, 100, "V");
-        }
-
-        c.InRange($"{k}.modulatorDelayS", m.ModulatorDelayS, 0, 1e-3, "s");
 
         const string f = "plant.feedback";
         var d = buck.Feedback;
@@ -146,6 +140,80 @@ public static class DesignValidator
         if (divOk && compensator is OpAmpNetwork net && double.IsFinite(net.R1Ohm) && Math.Abs(net.R1Ohm - d.TopOhm) > 1e-6 * d.TopOhm)
         {
             c.Warn("compensator.r1Ohm", $"R1 ({Format(net.R1Ohm, "Ohm")}) is the divider's top resistor, but plant.feedback.topOhm is {Format(d.TopOhm, "Ohm")}; the loop uses R1.");
+        }
+    }
+
+    private static void ValidateControl(Checks c, BuckPlant buck, bool stageOk)
+    {
+        const string k = "plant.control";
+        var s = buck.PowerStage;
+        switch (buck.Control)
+        {
+            case VoltageModeControl m:
+                if (m.InputFeedforward)
+                {
+                    c.InRange($"{k}.feedforwardRampPerVolt", m.FeedforwardRampPerVolt, 1e-4, 10, "V/V");
+                }
+                else
+                {
+                    c.InRange($"{k}.rampAmplitudeV", m.RampAmplitudeV, 1e-3, 100, "V");
+                }
+
+                break;
+            case PeakCurrentModeControl p:
+                bool riOk = c.Above($"{k}.senseGainOhm", p.SenseGainOhm, 0, 100, "Ohm");
+                bool rampOk = p.Ramp.Kind switch
+                {
+                    CompensationRampKind.VoltsPerSecond => c.InRange($"{k}.ramp.value", p.Ramp.Value, 0, 1e13, "V/s"),
+                    CompensationRampKind.MultipleOfOffSlope => c.InRange($"{k}.ramp.value", p.Ramp.Value, 0, 100, ""),
+                    _ => c.InRange($"{k}.ramp.value", p.Ramp.Value, 1, 100, ""),
+                };
+                if (!rampOk && double.IsFinite(p.Ramp.Value) && p.Ramp.Value < (p.Ramp.Kind == CompensationRampKind.Mc ? 1 : 0))
+                {
+                    c.Error($"{k}.ramp.value", p.Ramp.Kind == CompensationRampKind.Mc
+                        ? "mc below 1 would be a negative compensation ramp (mc = 1 + Se / Sn): the ramp adds to the sensed current."
+                        : "a negative compensation slope is not a ramp: Se is at least 0 V/s.");
+                }
+
+                if (riOk && stageOk)
+                {
+                    // The on-time slope is smallest at the lowest input and full load (CCM losses included).
+                    var op = BuckOperatingPoint.SolveContinuous(s, new OperatingCondition(s.InputVoltage.MinV, s.LoadCurrent.MaxA));
+                    if (!(op.OnIntervalInductorVoltageV > 0))
+                    {
+                        c.Error("plant.powerStage.inputVoltageV.min", $"the on-time inductor voltage Vin - Vout - I (Ron + DCR) is {Format(op.OnIntervalInductorVoltageV, "V")} at the minimum input and full load: the sensed slope Sn would not be positive.");
+                    }
+                }
+
+                break;
+            default:
+                c.Error($"{k}.scheme", "must be voltage mode or peak current mode.");
+                return;
+        }
+
+        c.InRange($"{k}.modulatorDelayS", buck.Control.ModulatorDelayS, 0, 1e-3, "s");
+        c.InRange($"{k}.modulatorDelayFractionOfPeriod", buck.Control.ModulatorDelayFractionOfPeriod, 0, 2, "");
+    }
+
+    private static void ValidateConductionModel(Checks c, BuckPowerStage s, AnalysisSettings analysis)
+    {
+        var at = DesignAnalyzer.ConditionOf(s, analysis);
+        var op = BuckOperatingPoint.Solve(s, at);
+        switch (analysis.ConductionModel)
+        {
+            case ConductionModelChoice.Discontinuous when s.Rectifier.Kind == RectifierKind.Synchronous:
+                c.Error("analysis.conductionModel", "the DCM model was asked for, but a synchronous rectifier runs in forced CCM (its current reverses instead of stopping): the operating point is never in DCM.");
+                return;
+            case ConductionModelChoice.Discontinuous when op.Mode == ConductionMode.Continuous:
+                c.Error("analysis.conductionModel", $"the DCM model was asked for, but the analysed load {Format(at.LoadCurrentA, "A")} is above the CCM/DCM boundary {Format(op.BoundaryLoadCurrentA, "A")}: the operating point is in CCM.");
+                return;
+            case ConductionModelChoice.Continuous:
+                return;
+        }
+
+        if (op.Mode == ConductionMode.Discontinuous && !(at.LoadCurrentA > 0))
+        {
+            c.Error("analysis.load", "analyses the minimum load of 0 A with a diode rectifier: the converter skips pulses at no load and no averaged model holds. Analyse at analysis.load = max, or set plant.powerStage.loadCurrentA.min above 0.");
         }
     }
 
@@ -302,6 +370,39 @@ public static class DesignValidator
                 {
                     c.InRange($"{p}.r3Ohm", n.R3Ohm, 1, 1e9, "Ohm");
                     c.InRange($"{p}.c3F", n.C3F, 1e-15, 1, "F");
+                }
+
+                c.InRange($"{p}.rBottomOhm", n.RBottomOhm, 0, 1e9, "Ohm");
+                switch (n.Amplifier)
+                {
+                    case OpAmp a:
+                        bool a0 = c.InRange($"{p}.amplifier.openLoopGain", a.OpenLoopGain, 10, 1e9, "V/V");
+                        bool gbw = c.InRange($"{p}.amplifier.gainBandwidthHz", a.GainBandwidthHz, 1e3, 1e11, "Hz");
+                        if (a.SecondPoleHz is double f2 && c.InRange($"{p}.amplifier.secondPoleHz", f2, 1e3, 1e12, "Hz") && a0 && gbw && f2 <= a.DominantPoleHz)
+                        {
+                            c.Error($"{p}.amplifier.secondPoleHz", $"{Format(f2, "Hz")} must be above the dominant pole GBW / A0 = {Format(a.DominantPoleHz, "Hz")}.");
+                        }
+
+                        break;
+                    case Transconductance:
+                        c.Error($"{p}.amplifier.kind", "a transconductance amplifier drives a network to ground, not an inverting feedback network: use the transconductance compensator form (compensator.form = ota).");
+                        break;
+                }
+
+                break;
+            case TransconductanceNetwork g:
+                if (g.Type == CompensatorType.TypeIII)
+                {
+                    c.Error($"{p}.type", "a transconductance compensator is Type I or Type II here (a Type III needs a capacitor across the divider's top resistor).");
+                }
+
+                c.InRange($"{p}.amplifier.transconductanceS", g.Amplifier.TransconductanceS, 1e-6, 0.1, "S");
+                c.InRange($"{p}.amplifier.outputResistanceOhm", g.Amplifier.OutputResistanceOhm, 1e3, 1e10, "Ohm");
+                c.InRange($"{p}.c1F", g.C1F, 1e-15, 1, "F");
+                if (g.Type == CompensatorType.TypeII)
+                {
+                    c.InRange($"{p}.r2Ohm", g.R2Ohm, 1, 1e9, "Ohm");
+                    c.InRange($"{p}.c2F", g.C2F, 1e-15, 1, "F");
                 }
 
                 break;

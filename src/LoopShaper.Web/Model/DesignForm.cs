@@ -32,7 +32,9 @@ public sealed class DesignForm
         // A custom plant has no power stage: the demo's values stand in for the hidden power-stage fields.
         var shown = buck ?? (BuckPlant)DemoDesign.Create().Plant;
         var s = shown.PowerStage;
-        var m = shown.Control;
+        // The form edits voltage-mode control only so far; a peak current-mode design shows the demo's modulator fields
+        // (the workspace's peak current-mode inputs are still to be added).
+        var m = shown.Control as VoltageModeControl ?? (VoltageModeControl)((BuckPlant)DemoDesign.Create().Plant).Control;
         var f = shown.Feedback;
 
         InputMin = new($"{Stage}.inputVoltageV.min", "Input, minimum", "V", s.InputVoltage.MinV);

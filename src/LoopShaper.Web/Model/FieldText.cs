@@ -8,6 +8,12 @@ public static class FieldText
     /// <summary>"680 nH", "12.34 V", "4": the shortest engineering form that parses back to <paramref name="value"/> within 1e-9.</summary>
     public static string Format(double value, string unit)
     {
+        // Plain ratios (a duty cycle of 0.9) read better without a prefix than as "900m".
+        if (unit.Length == 0 && Math.Abs(value) >= 1e-3 && Math.Abs(value) < 1e3)
+        {
+            return value.ToString("G15", System.Globalization.CultureInfo.InvariantCulture);
+        }
+
         for (int digits = 3; digits <= 15; digits++)
         {
             string text = TrimZeros(EngineeringFormat.Format(value, unit, digits));
