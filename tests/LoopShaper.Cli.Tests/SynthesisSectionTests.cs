@@ -74,6 +74,14 @@ public class SynthesisSectionTests
     }
 
     [Fact]
+    public void The_section_is_a_version_2_field()
+    {
+        var e = Errors(j => j["version"] = 1);
+        Assert.Equal("is a field of design-file version 2; this file says \"version\": 1. Set \"version\": 2 to use it.", Single(e, "$.synthesis").Message);
+        Assert.Single(e);
+    }
+
+    [Fact]
     public void Si_texts_are_read_in_the_section()
     {
         var s = Read(j =>

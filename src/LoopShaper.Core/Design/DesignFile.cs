@@ -11,7 +11,7 @@ public static class DesignFile
     public const string FormatName = "loopshaper-design";
 
     /// <summary>The version this program writes. Version 2 added peak current mode, the modulator delay as a fraction of
-    /// the period, real error amplifiers (op-amp and transconductance) and analysis.conductionModel.</summary>
+    /// the period, real error amplifiers (op-amp and transconductance), analysis.conductionModel and the synthesis section.</summary>
     public const int CurrentVersion = 2;
 
     /// <summary>The oldest version this program still reads (version 1 files read unchanged).</summary>

@@ -51,6 +51,7 @@ internal static class DesignFileReader
             var analysis = analysisFields is null ? new AnalysisSettings() : ReadAnalysis(analysisFields, version);
             var criteriaFields = root.OptionalObject("criteria");
             var criteria = criteriaFields is null ? new DesignCriteria() : ReadCriteria(criteriaFields);
+            root.NeedsVersion("synthesis", version, 2);
             var synthesisFields = root.OptionalObject("synthesis");
             var synthesis = synthesisFields is null ? null : SynthesisSectionReader.Read(synthesisFields);
             root.Finish("a design file");
