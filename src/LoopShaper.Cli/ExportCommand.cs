@@ -1,7 +1,6 @@
 using System.CommandLine;
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Exports;
-using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Synthesis;
 using LoopShaper.Core.Validation;
 
@@ -47,9 +46,9 @@ internal static class ExportCommand
                 return ExitCodes.InvalidInput;
             }
 
-            if (wantLoop && design.Plant is not BuckPlant)
+            if (wantLoop && AveragedLoopSupport.ReasonAgainst(design) is { } against)
             {
-                error.WriteLine($"{path}: error: $.plant.model: the averaged-loop netlist is written for the buck power stage; a custom plant has no circuit to export (use --netlist without --loop).");
+                DesignLoader.ReportAll(error, path, [against]);
                 return ExitCodes.InvalidInput;
             }
 
@@ -69,6 +68,11 @@ internal static class ExportCommand
             {
                 DesignLoader.ReportAll(error, path, issues.Where(i => i.Severity == Severity.Error));
                 return ExitCodes.InvalidInput;
+            }
+
+            if (wantNetlist && !design.Compensator.HasIdealAmplifier)
+            {
+                error.WriteLine($"{path}: warning: $.compensator.amplifier: the netlist takes an ideal amplifier (an E source of {SpiceNetlist.DefaultAmplifierGain:G3} V/V); the design's op-amp is not modelled in it.");
             }
 
             string text = wantParts

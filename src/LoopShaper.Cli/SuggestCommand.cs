@@ -19,7 +19,7 @@ internal static class SuggestCommand
         var file = new Argument<string>("file") { Description = "Design file (docs/design-file.md)." };
         var method = new Option<string>("--method", "-m") { Description = "kfactor (Venable's K factor) or resonance (zeros at the plant's corners).", DefaultValueFactory = _ => "kfactor" };
         method.AcceptOnlyFromAmong("kfactor", "resonance");
-        var type = new Option<string?>("--type", "-t") { Description = "Compensator type for the K factor: typeI, typeII or typeIII; default: from the boost needed. For resonance on a custom plant, typeII picks the current-mode placement." };
+        var type = new Option<string?>("--type", "-t") { Description = "Compensator type for the K factor: typeI, typeII or typeIII; default: from the boost needed. For resonance: the buck's control scheme picks the placement; on a custom plant, typeII picks the current-mode one." };
         type.AcceptOnlyFromAmong("typeI", "typeII", "typeIII");
         var crossover = new Option<string?>("--crossover") { Description = "Target crossover with SI prefix (50k, 50 kHz). Default: a tenth of the switching frequency." };
         var phaseMargin = new Option<string?>("--phase-margin") { Description = "Target phase margin in degrees. Default: the design's criteria.minPhaseMarginDeg." };
@@ -75,11 +75,15 @@ internal static class SuggestCommand
     }
 
     /// <summary>
-    /// The resonance placement a plant takes: the voltage-mode Type III for the buck (its only modulator so far); for a
-    /// custom plant, the current-mode Type II when Type II is asked for, else the voltage-mode Type III.
+    /// The resonance placement a plant takes: by its control scheme for the buck (voltage mode: Type III; peak current
+    /// mode: Type II); for a custom plant, the current-mode Type II when Type II is asked for, else the voltage-mode Type III.
     /// </summary>
-    internal static PlacementMethod ResonanceMethodFor(Plant plant, CompensatorType? type)
-        => plant is CustomPlant && type == CompensatorType.TypeII ? PlacementMethod.CurrentModeResonance : PlacementMethod.VoltageModeResonance;
+    internal static PlacementMethod ResonanceMethodFor(Plant plant, CompensatorType? type) => plant switch
+    {
+        BuckPlant { Control: PeakCurrentModeControl } => PlacementMethod.CurrentModeResonance,
+        BuckPlant => PlacementMethod.VoltageModeResonance,
+        _ => type == CompensatorType.TypeII ? PlacementMethod.CurrentModeResonance : PlacementMethod.VoltageModeResonance,
+    };
 
     /// <summary>The option or design-file path a finding of the placement advisor is about.</summary>
     private static string OptionOf(string field) => field switch

@@ -113,6 +113,28 @@ public class SuggestCommandTests
     }
 
     [Fact]
+    public async Task Resonance_on_a_peak_current_mode_buck_puts_the_zero_at_the_load_pole()
+    {
+        // Peak current mode: Type II, zero at the load pole (the lowest real pole of the plant), pole at the ESR zero or
+        // fs/2 (common practice, no source). Ridley 1991: wp = 1 / (R C) + Ts (mc D' - 0.5) / (L C), with the example's
+        // ramp Se = 0.5 Sf, so mc = 1 + 0.5 Vout / (Vin - Vout); lossless D = Vout / Vin at the nominal 12 V. The losses
+        // (DCR, switch resistances) move it by about 1.5 % here, hence 3 %.
+        string example = RepoFiles.Example("pol-12v-to-3v3-peak-current-mode.json");
+        using var doc = await SynthesizeCommandTests.Json("suggest", example, "--method", "resonance");
+        var r = doc.RootElement;
+        Assert.Equal("currentModeResonance", r.GetProperty("method").GetString());
+        Assert.Equal("typeII", r.GetProperty("compensator").GetProperty("type").GetString());
+        var design = DesignFile.Read(File.ReadAllText(example)).Design!;
+        var stage = ((BuckPlant)design.Plant).PowerStage;
+        double c = stage.OutputCapacitors.Sum(b => b.TotalCapacitanceF), l = stage.Inductor.InductanceH, rLoad = stage.OutputVoltageV / stage.LoadCurrent.MaxA;
+        double vin = stage.InputVoltage.NominalV, vout = stage.OutputVoltageV, d = vout / vin;
+        double mc = 1 + (0.5 * vout / (vin - vout));
+        double fp = ((1 / (rLoad * c)) + ((mc * (1 - d)) - 0.5) / (stage.SwitchingFrequencyHz * l * c)) / (2 * Math.PI);
+        Assert.Equal(885.6, fp, 0.1); // by hand: (5050.5 + 514.2 rad/s) / 2 pi
+        Assert.InRange(r.GetProperty("compensator").GetProperty("zero1Hz").GetDouble(), fp * 0.97, fp * 1.03);
+    }
+
+    [Fact]
     public async Task A_plant_without_what_the_method_needs_is_exit_code_2()
     {
         // The LED driver's only poles are a complex pair: no real load pole for the current-mode placement.

@@ -23,6 +23,11 @@ public static class DesignSynthesizer
     {
         result = null;
         issues = [.. DesignValidator.Validate(design), .. NetworkSynthesizer.Validate(options)];
+        if (design.Compensator is TransconductanceNetwork)
+        {
+            issues = issues.Add(new ValidationIssue("compensator.form", "the parts synthesis makes op-amp Type I, II and III networks; a transconductance (OTA) compensator is not synthesised here yet: give its parts in the design file."));
+        }
+
         if (issues.Any(i => i.Severity == Severity.Error))
         {
             return false;
@@ -52,11 +57,20 @@ public static class DesignSynthesizer
     }
 
     /// <summary>
-    /// The design with a network as its compensator. For a buck whose network carries the divider's bottom resistor,
-    /// the feedback divider becomes R1 over R4: R1 is the divider's top resistor (shared/CONVENTIONS.md).
+    /// The design with a network as its compensator, around the design's own op-amp when it names one (the parts are
+    /// computed for an ideal amplifier; the criteria are judged with the real one). For a buck whose network carries
+    /// the divider's bottom resistor, the feedback divider becomes R1 over R4: R1 is the divider's top resistor
+    /// (shared/CONVENTIONS.md).
     /// </summary>
     public static LoopDesign WithParts(LoopDesign design, OpAmpNetwork network)
-        => design.Plant is BuckPlant buck && network.RBottomOhm > 0
+    {
+        if (network.Amplifier is null && design.Compensator is OpAmpNetwork { Amplifier: { } amplifier })
+        {
+            network = network with { Amplifier = amplifier };
+        }
+
+        return design.Plant is BuckPlant buck && network.RBottomOhm > 0
             ? design with { Compensator = network, Plant = buck with { Feedback = new FeedbackDivider(network.R1Ohm, network.RBottomOhm, buck.Feedback.ReferenceV) } }
             : design with { Compensator = network };
+    }
 }

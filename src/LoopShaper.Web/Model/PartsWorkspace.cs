@@ -1,7 +1,6 @@
 using System.Collections.Immutable;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.Exports;
-using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Reporting;
 using LoopShaper.Core.Synthesis;
 using LoopShaper.Core.Validation;
@@ -130,7 +129,7 @@ public sealed class PartsWorkspace : IDisposable
             Path.GetFileNameWithoutExtension(ShareToken.FileNameOf(design.Name)),
             PartsListCsv.Write(result.Synthesis),
             SpiceNetlist.Compensator(network, design.Name),
-            design.Plant is BuckPlant ? SpiceNetlist.AveragedLoop(result.BuiltDesign, network) : null);
+            AveragedLoopSupport.ReasonAgainst(result.BuiltDesign) is null ? SpiceNetlist.AveragedLoop(result.BuiltDesign, network) : null);
         return (result, issues, exports);
     }
 }
