@@ -1,0 +1,118 @@
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Design;
+using LoopShaper.Core.PlantModels;
+using LoopShaper.Core.Validation;
+using LoopShaper.Web.Components.Controls;
+
+namespace LoopShaper.Web.Tests;
+
+/// <summary>The control scheme and amplifier inputs: a peak current-mode design stays one, field by field.</summary>
+public sealed class ControlSchemeTests : BunitContext
+{
+    public ControlSchemeTests()
+    {
+        JSInterop.Mode = JSRuntimeMode.Strict;
+    }
+
+    private static LoopDesign PcmExample => Example("pol-12v-to-3v3-peak-current-mode.json");
+
+    [Fact]
+    public void Saving_the_peak_current_mode_example_gives_back_the_loaded_design()
+    {
+        var design = PcmExample;
+        Assert.IsType<PeakCurrentModeControl>(((BuckPlant)design.Plant).Control);
+        Assert.IsType<TransconductanceNetwork>(design.Compensator);
+        Assert.Equal(DesignFile.Write(design), DesignFile.Write(DesignForm.FromDesign(design).Build()));
+    }
+
+    [Theory]
+    [InlineData("core-rail-12v-to-1v0.json")]
+    [InlineData("sensor-24v-to-5v-light-load-dcm.json")]
+    [InlineData("usb-5v-to-3v3-diode.json")]
+    [InlineData("industrial-24v-to-5v.json")]
+    public void Every_modelled_example_round_trips_through_the_form(string file)
+    {
+        var design = Example(file);
+        Assert.Equal(DesignFile.Write(design), DesignFile.Write(DesignForm.FromDesign(design).Build()));
+    }
+
+    [Fact]
+    public void Peak_current_mode_fields_show_the_example_values()
+    {
+        var form = DesignForm.FromDesign(PcmExample);
+        var cut = Render<ControlSchemeEditor>(p => p.Add(c => c.Form, form));
+
+        Assert.Equal(ControlScheme.PeakCurrentMode.ToString(), cut.Find("[data-control-scheme]").GetAttribute("value"));
+        Assert.Equal(CompensationRampKind.MultipleOfOffSlope.ToString(), cut.Find("[data-ramp-kind]").GetAttribute("value"));
+        // Values of docs/examples/pol-12v-to-3v3-peak-current-mode.json: Ri = 0.1 Ohm, ramp 0.5 × Sf, delay 60 ns.
+        Assert.Equal("100 mOhm", cut.Find("#f-plant-control-senseGainOhm").GetAttribute("value"));
+        Assert.Equal("0.5", cut.Find("#f-plant-control-ramp-value").GetAttribute("value"));
+        Assert.Equal("60 ns", cut.Find("#f-plant-control-modulatorDelayS").GetAttribute("value"));
+        Assert.Empty(cut.FindAll("#f-plant-control-rampAmplitudeV"));
+    }
+
+    [Fact]
+    public void A_bad_sense_gain_and_a_negative_ramp_show_the_core_messages_beside_their_fields()
+    {
+        var form = DesignForm.FromDesign(PcmExample);
+        form.SenseGain.SetText("0");
+        form.RampValue.SetText("-1");
+        var issues = new FieldIssues(DesignValidator.Validate(form.Build()));
+
+        var cut = Render<ControlSchemeEditor>(p => p.Add(c => c.Form, form).Add(c => c.Issues, issues));
+
+        // Messages from LoopShaper.Core.Validation.DesignValidator.
+        Assert.Contains("out of range", cut.Find("[data-field-message='plant.control.senseGainOhm']").TextContent, StringComparison.Ordinal);
+        Assert.Contains(cut.FindAll("[data-field-message='plant.control.ramp.value']"), m => m.TextContent.Contains("negative compensation slope", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Switching_the_scheme_changes_the_design_the_form_builds()
+    {
+        var form = DesignForm.FromDesign(PcmExample);
+        var cut = Render<ControlSchemeEditor>(p => p.Add(c => c.Form, form));
+
+        cut.Find("[data-control-scheme]").Change(ControlScheme.VoltageMode.ToString());
+        var vm = Assert.IsType<VoltageModeControl>(((BuckPlant)form.Build().Plant).Control);
+        Assert.Equal(60e-9, vm.ModulatorDelayS, 12);
+        Assert.NotEmpty(cut.FindAll("#f-plant-control-rampAmplitudeV"));
+
+        cut.Find("[data-control-scheme]").Change(ControlScheme.PeakCurrentMode.ToString());
+        cut.Find("[data-ramp-kind]").Change(CompensationRampKind.Mc.ToString());
+        cut.Find("#f-plant-control-ramp-value").Input("1.8");
+        var pcm = Assert.IsType<PeakCurrentModeControl>(((BuckPlant)form.Build().Plant).Control);
+        Assert.Equal(new CompensationRamp(CompensationRampKind.Mc, 1.8), pcm.Ramp);
+        Assert.Equal(0.1, pcm.SenseGainOhm, 12);
+    }
+
+    [Fact]
+    public void The_op_amp_choice_builds_a_real_amplifier_with_its_fields()
+    {
+        var form = DesignForm.FromDesign(TestDesigns.Demo);
+        form.Mode = CompensatorMode.Parts;
+        var cut = Render<CompensatorEditor>(p => p.Add(c => c.Form, form));
+
+        cut.Find("[data-amplifier]").Change("True");
+        cut.Find("#f-compensator-amplifier-gainBandwidthHz").Input("2 MHz");
+        var network = Assert.IsType<OpAmpNetwork>(form.Build().Compensator);
+        var amp = Assert.IsType<OpAmp>(network.Amplifier);
+        Assert.Equal(2e6, amp.GainBandwidthHz, 6);
+        Assert.Null(amp.SecondPoleHz);
+
+        cut.Find("[data-amplifier]").Change("False");
+        Assert.Null(((OpAmpNetwork)form.Build().Compensator).Amplifier);
+    }
+
+    private static LoopDesign Example(string file)
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "LoopShaper.sln")))
+        {
+            dir = dir.Parent;
+        }
+
+        string path = Path.Combine(dir?.FullName ?? throw new InvalidOperationException("repository root not found"), "docs", "examples", file);
+        var result = DesignFile.Read(File.ReadAllText(path));
+        return result.Design ?? throw new InvalidOperationException($"{file}: {string.Join("; ", result.Errors.Select(e => e.Message))}");
+    }
+}
