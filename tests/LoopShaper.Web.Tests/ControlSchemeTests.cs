@@ -103,6 +103,34 @@ public sealed class ControlSchemeTests : BunitContext
         Assert.Null(((OpAmpNetwork)form.Build().Compensator).Amplifier);
     }
 
+    [Fact]
+    public void The_summary_shows_the_model_qp_as_the_core_computed_it_and_the_corners()
+    {
+        var analysis = DesignAnalyzer.Analyze(PcmExample);
+        var cm = analysis.CurrentMode!;
+        var cut = Render<SummaryPanel>(p => p.Add(s => s.Analysis, analysis));
+
+        Assert.Equal("CCM", cut.Find("[data-kpi-value='model']").TextContent);
+        Assert.Equal(cm.Qp!.Value.ToString("F2", System.Globalization.CultureInfo.InvariantCulture), cut.Find("[data-kpi-value='qp']").TextContent);
+        Assert.Contains("Qp = 1 needs mc", cut.Find("[data-kpi='qp']").TextContent, StringComparison.Ordinal);
+        Assert.Equal(analysis.Corners.Length, cut.FindAll("[data-corners] tbody tr").Count);
+        Assert.True(analysis.Corners.Length >= 4);
+    }
+
+    [Fact]
+    public void A_ramp_too_small_for_a_duty_cycle_above_half_shows_the_subharmonic_state()
+    {
+        // Ridley 1991: with no ramp (mc = 1) the current loop is unstable for D > 0.5; 12 V to 3.3 V raised to 9 V output.
+        var form = DesignForm.FromDesign(PcmExample);
+        form.OutputVoltage.SetText("9 V");
+        form.SetRampKind(CompensationRampKind.Mc, 1.0);
+        var analysis = DesignAnalyzer.Analyze(form.Build());
+        Assert.True(analysis.CurrentMode!.IsSubharmonicallyUnstable);
+
+        var cut = Render<SummaryPanel>(p => p.Add(s => s.Analysis, analysis));
+        Assert.Equal("unstable", cut.Find("[data-kpi-value='qp']").TextContent);
+    }
+
     private static LoopDesign Example(string file)
     {
         var dir = new DirectoryInfo(AppContext.BaseDirectory);
