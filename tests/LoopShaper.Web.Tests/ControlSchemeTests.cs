@@ -2,7 +2,9 @@ using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Validation;
+using System.Text.Json;
 using LoopShaper.Web.Components.Controls;
+using LoopShaper.Web.Model.Charts;
 
 namespace LoopShaper.Web.Tests;
 
@@ -129,6 +131,58 @@ public sealed class ControlSchemeTests : BunitContext
 
         var cut = Render<SummaryPanel>(p => p.Add(s => s.Analysis, analysis));
         Assert.Equal("unstable", cut.Find("[data-kpi-value='qp']").TextContent);
+    }
+
+    [Fact]
+    public void A_finite_gain_bandwidth_op_amp_adds_the_ideal_amplifier_traces_to_the_chart_and_they_toggle()
+    {
+        var module = PlotlyModule.Setup(JSInterop);
+        var form = DesignForm.FromDesign(TestDesigns.Demo);
+        form.Mode = CompensatorMode.Parts;
+        form.RealOpAmp = true;
+        form.GainBandwidth.SetText("1 MHz");
+        var analysis = DesignAnalyzer.Analyze(form.Build());
+        Assert.NotNull(analysis.IdealAmplifierLoopResponse);
+
+        var cut = Render<BodeChart>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Form, form));
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
+        var names = TraceNames(module.Invocations["newPlot"].Single().Arguments[1]);
+        Assert.Contains(BodeFigure.IdealLoopName, names);
+        Assert.Contains(BodeFigure.IdealCompensatorName, names);
+
+        // The ideal loop sent is the core's ideal-amplifier loop, not the real one: its low-frequency gain is higher
+        // (finite open-loop gain A0 = 1e5 caps the real integrator).
+        using (var doc = JsonDocument.Parse(JsonSerializer.Serialize(module.Invocations["newPlot"].Single().Arguments[1])))
+        {
+            var ideal = doc.RootElement.EnumerateArray().First(t => t.GetProperty("name").GetString() == BodeFigure.IdealLoopName);
+            Assert.Equal(analysis.IdealAmplifierLoopResponse!.MagnitudeDb[0], ideal.GetProperty("y")[0].GetDouble(), 1e-3);
+            Assert.True(analysis.IdealAmplifierLoopResponse.MagnitudeDb[0] > analysis.LoopResponse!.MagnitudeDb[0]);
+        }
+
+        cut.Find("[data-trace-toggle='ideal-amplifier']").Change(false);
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["react"]));
+        using var after = JsonDocument.Parse(JsonSerializer.Serialize(module.Invocations["react"].Single().Arguments[1]));
+        var traces = after.RootElement.EnumerateArray().ToList();
+        string Visible(string name) => traces.First(t => t.GetProperty("name").GetString() == name).GetProperty("visible").ToString();
+        Assert.NotEqual(Visible(BodeFigure.LoopName), Visible(BodeFigure.IdealLoopName));
+        Assert.Equal(Visible(BodeFigure.IdealCompensatorName), Visible(BodeFigure.IdealLoopName));
+    }
+
+    [Fact]
+    public void An_ideal_amplifier_design_has_no_ideal_amplifier_traces()
+    {
+        var module = PlotlyModule.Setup(JSInterop);
+        var analysis = TestDesigns.DemoAnalysis;
+        var cut = Render<BodeChart>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Form, DesignForm.FromDesign(analysis.Design)));
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
+        Assert.DoesNotContain(BodeFigure.IdealLoopName, TraceNames(module.Invocations["newPlot"].Single().Arguments[1]));
+        Assert.Empty(cut.FindAll("[data-trace-toggle='ideal-amplifier']"));
+    }
+
+    private static List<string?> TraceNames(object? data)
+    {
+        using var doc = JsonDocument.Parse(JsonSerializer.Serialize(data));
+        return [.. doc.RootElement.EnumerateArray().Select(t => t.TryGetProperty("name", out var n) ? n.GetString() : null)];
     }
 
     private static LoopDesign Example(string file)
