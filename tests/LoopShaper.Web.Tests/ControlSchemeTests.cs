@@ -1,8 +1,8 @@
+using System.Text.Json;
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Validation;
-using System.Text.Json;
 using LoopShaper.Web.Components.Controls;
 using LoopShaper.Web.Model.Charts;
 
