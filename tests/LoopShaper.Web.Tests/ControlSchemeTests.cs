@@ -179,6 +179,16 @@ public sealed class ControlSchemeTests : BunitContext
         Assert.Empty(cut.FindAll("[data-trace-toggle='ideal-amplifier']"));
     }
 
+    [Fact]
+    public void The_derivation_view_lists_the_core_current_mode_steps()
+    {
+        var analysis = DesignAnalyzer.Analyze(PcmExample);
+        Assert.Contains(analysis.Derivations, d => d.Quantity == "Current-loop crossover");
+        var cut = Render<DerivationView>(p => p.Add(c => c.Derivations, analysis.Derivations));
+        Assert.Contains("Current-loop crossover", cut.Markup, StringComparison.Ordinal);
+        Assert.Contains("Ridley 1991", cut.Markup, StringComparison.Ordinal);
+    }
+
     private static List<string?> TraceNames(object? data)
     {
         using var doc = JsonDocument.Parse(JsonSerializer.Serialize(data));
