@@ -100,6 +100,26 @@ public sealed class WorkspaceTests(WorkspaceFixture fixture) : IAsyncLifetime
     }
 
     [Fact]
+    public async Task A_peak_current_mode_design_shows_qp_and_a_larger_ramp_lowers_it()
+    {
+        var page = await OpenAsync(_browser, fixture.App.BaseUri.ToString());
+        string json = await File.ReadAllTextAsync(Path.Combine(RepoRoot(), "docs", "examples", "pol-12v-to-3v3-peak-current-mode.json"));
+        await page.SetInputFilesAsync("[data-open-design]", new FilePayload { Name = "pcm.json", MimeType = "application/json", Buffer = System.Text.Encoding.UTF8.GetBytes(json) });
+        await page.WaitForFunctionAsync("() => document.querySelector(\"[data-kpi-value='qp']\") !== null");
+        Assert.Equal("PeakCurrentMode", await page.InputValueAsync("[data-control-scheme]"));
+        string qpBefore = await Kpi(page, "qp");
+        Assert.True(double.TryParse(qpBefore, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out double q0), qpBefore);
+
+        // Ridley 1991: Qp = 1 / (pi (mc D' - 0.5)); more ramp (larger mc) lowers Qp.
+        await page.FillAsync("#f-plant-control-ramp-value", "2");
+        await page.WaitForFunctionAsync($"() => {{ const e = document.querySelector(\"[data-kpi-value='qp']\"); return e && e.textContent !== '{qpBefore}'; }}");
+        string qpAfter = await Kpi(page, "qp");
+        Assert.True(double.Parse(qpAfter, System.Globalization.CultureInfo.InvariantCulture) < q0, $"{qpBefore} -> {qpAfter}");
+        await Shot(page, "07-peak-current-mode-qp");
+        AssertNoConsoleErrors();
+    }
+
+    [Fact]
     public async Task A_saved_design_reopens_through_its_link_on_another_machine()
     {
         var page = await OpenAsync(_browser, fixture.App.BaseUri.ToString());

@@ -8,4 +8,7 @@ public enum CompensatorMode
 
     /// <summary>By the resistors and capacitors of the op-amp network.</summary>
     Parts,
+
+    /// <summary>By the transconductance amplifier and its network to ground.</summary>
+    Transconductance,
 }

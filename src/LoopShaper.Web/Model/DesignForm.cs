@@ -22,6 +22,9 @@ public sealed class DesignForm
 
     private readonly SynthesisSettings? _synthesis;
 
+    // An ideal op-amp named in the file is kept as written, so that saving gives the file back.
+    private readonly IdealOpAmp? _idealAmplifier;
+
     private DesignForm(LoopDesign design)
     {
         Name = design.Name;
@@ -32,9 +35,9 @@ public sealed class DesignForm
         // A custom plant has no power stage: the demo's values stand in for the hidden power-stage fields.
         var shown = buck ?? (BuckPlant)DemoDesign.Create().Plant;
         var s = shown.PowerStage;
-        // The form edits voltage-mode control only so far; a peak current-mode design shows the demo's modulator fields
-        // (the workspace's peak current-mode inputs are still to be added).
+        // Each scheme's fields start from the design's values, or from defaults when the design uses the other scheme.
         var m = shown.Control as VoltageModeControl ?? (VoltageModeControl)((BuckPlant)DemoDesign.Create().Plant).Control;
+        var pcm = shown.Control as PeakCurrentModeControl ?? new PeakCurrentModeControl(0.1, new CompensationRamp(CompensationRampKind.MultipleOfOffSlope, 0.5));
         var f = shown.Feedback;
 
         InputMin = new($"{Stage}.inputVoltageV.min", "Input, minimum", "V", s.InputVoltage.MinV);
@@ -56,25 +59,39 @@ public sealed class DesignForm
         InputFeedforward = m.InputFeedforward;
         RampAmplitude = new($"{Control}.rampAmplitudeV", "Ramp amplitude Vm", "V", m.RampAmplitudeV);
         FeedforwardRamp = new($"{Control}.feedforwardRampPerVolt", "Ramp per input volt k", string.Empty, m.FeedforwardRampPerVolt, "V/V");
-        ModulatorDelay = new($"{Control}.modulatorDelayS", "Modulator delay", "s", m.ModulatorDelayS);
+        Scheme = shown.Control is PeakCurrentModeControl ? ControlScheme.PeakCurrentMode : ControlScheme.VoltageMode;
+        SenseGain = new($"{Control}.senseGainOhm", "Current-sense gain Ri", "Ohm", pcm.SenseGainOhm, "Ω");
+        RampKind = pcm.Ramp.Kind;
+        RampValue = new($"{Control}.ramp.value", "Compensation ramp", RampUnit(RampKind), pcm.Ramp.Value, RampDisplayUnit(RampKind));
+        ModulatorDelay = new($"{Control}.modulatorDelayS", "Modulator delay", "s", shown.Control.ModulatorDelayS);
+        ModulatorDelayFraction = new($"{Control}.modulatorDelayFractionOfPeriod", "Delay, fraction of the period", string.Empty, shown.Control.ModulatorDelayFractionOfPeriod, "× Ts");
         DividerTop = new($"{Feedback}.topOhm", "Divider, top", "Ohm", f.TopOhm, "Ω");
         DividerBottom = new($"{Feedback}.bottomOhm", "Divider, bottom", "Ohm", f.BottomOhm, "Ω");
         Reference = new($"{Feedback}.referenceV", "Reference", "V", f.ReferenceV);
 
         var placement = design.Compensator as CompensatorPlacement;
         var parts = design.Compensator as OpAmpNetwork;
-        Mode = parts is null ? CompensatorMode.Placement : CompensatorMode.Parts;
+        var ota = design.Compensator as TransconductanceNetwork;
+        Mode = ota is not null ? CompensatorMode.Transconductance : parts is null ? CompensatorMode.Placement : CompensatorMode.Parts;
+        var opAmp = parts?.Amplifier as OpAmp;
+        RealOpAmp = opAmp is not null;
+        _idealAmplifier = parts?.Amplifier as IdealOpAmp;
+        OpenLoopGain = new($"{Comp}.amplifier.openLoopGain", "Open-loop gain A0", string.Empty, opAmp?.OpenLoopGain ?? 1e5, "V/V");
+        GainBandwidth = new($"{Comp}.amplifier.gainBandwidthHz", "Gain-bandwidth", "Hz", opAmp?.GainBandwidthHz ?? 10e6);
+        SecondPole = new($"{Comp}.amplifier.secondPoleHz", "Second pole (empty: none)", "Hz", opAmp?.SecondPoleHz, optional: true);
+        Transconductance = new($"{Comp}.amplifier.transconductanceS", "Transconductance gm", "S", ota?.Amplifier.TransconductanceS ?? 1e-3);
+        OtaOutputResistance = new($"{Comp}.amplifier.outputResistanceOhm", "Output resistance", "Ohm", ota?.Amplifier.OutputResistanceOhm ?? 5e6, "Ω");
         CompensatorType = design.Compensator.Type;
         GainKind = placement?.Gain.Kind ?? GainSettingKind.CrossoverHz;
         GainValue = new($"{Comp}.gain.value", "Gain setting", GainUnit(GainKind), placement?.Gain.Value ?? 0.1 * s.SwitchingFrequencyHz);
-        Zero1 = new($"{Comp}.zero1Hz", "Zero 1", "Hz", placement?.Zero1Hz ?? parts?.ToPlacement().Zero1Hz);
+        Zero1 = new($"{Comp}.zero1Hz", "Zero 1", "Hz", placement?.Zero1Hz ?? parts?.ToPlacement().Zero1Hz ?? ota?.ToPlacement().Zero1Hz);
         Zero2 = new($"{Comp}.zero2Hz", "Zero 2", "Hz", placement?.Zero2Hz ?? parts?.ToPlacement().Zero2Hz);
-        Pole1 = new($"{Comp}.pole1Hz", "Pole 1", "Hz", placement?.Pole1Hz ?? parts?.ToPlacement().Pole1Hz);
+        Pole1 = new($"{Comp}.pole1Hz", "Pole 1", "Hz", placement?.Pole1Hz ?? parts?.ToPlacement().Pole1Hz ?? ota?.ToPlacement().Pole1Hz);
         Pole2 = new($"{Comp}.pole2Hz", "Pole 2", "Hz", placement?.Pole2Hz ?? parts?.ToPlacement().Pole2Hz);
         R1 = new($"{Comp}.r1Ohm", "R1 (divider top)", "Ohm", parts?.R1Ohm ?? f.TopOhm, "Ω");
-        C1 = new($"{Comp}.c1F", "C1", "F", parts?.C1F ?? 2.2e-9);
-        R2 = new($"{Comp}.r2Ohm", "R2", "Ohm", parts?.R2Ohm ?? 10e3, "Ω");
-        C2 = new($"{Comp}.c2F", "C2", "F", parts?.C2F ?? 100e-12);
+        C1 = new($"{Comp}.c1F", "C1", "F", ota?.C1F ?? parts?.C1F ?? 2.2e-9);
+        R2 = new($"{Comp}.r2Ohm", "R2", "Ohm", ota?.R2Ohm ?? parts?.R2Ohm ?? 10e3, "Ω");
+        C2 = new($"{Comp}.c2F", "C2", "F", ota?.C2F ?? parts?.C2F ?? 100e-12);
         R3 = new($"{Comp}.r3Ohm", "R3", "Ohm", parts?.R3Ohm ?? 1e3, "Ω");
         C3 = new($"{Comp}.c3F", "C3", "F", parts?.C3F ?? 1e-9);
         RBottom = new($"{Comp}.rBottomOhm", "R bottom", "Ohm", parts?.RBottomOhm ?? f.BottomOhm, "Ω");
@@ -85,6 +102,7 @@ public sealed class DesignForm
         Points = new($"{Run}.points", "Points", string.Empty, a.Points, "pts", wholeNumber: true);
         InputCorner = a.Input;
         LoadCorner = a.Load;
+        ConductionModel = a.ConductionModel;
         LoadStep = new($"{Run}.loadStepA", "Load step", "A", a.LoadStepA);
         LoadStepSlew = new($"{Run}.loadStepSlewAPerS", "Load step slew", "A/s", a.LoadStepSlewAPerS);
         ReferenceStep = new($"{Run}.referenceStepV", "Reference step", "V", a.ReferenceStepV);
@@ -173,8 +191,44 @@ public sealed class DesignForm
     /// <summary>Feedforward ramp per input volt.</summary>
     public FieldState FeedforwardRamp { get; }
 
+    /// <summary>Voltage mode or peak current mode.</summary>
+    public ControlScheme Scheme { get; set; }
+
+    /// <summary>Peak current mode: current-sense gain Ri.</summary>
+    public FieldState SenseGain { get; }
+
+    /// <summary>Peak current mode: how the compensation ramp is entered.</summary>
+    public CompensationRampKind RampKind { get; private set; }
+
+    /// <summary>Peak current mode: the compensation ramp in the unit of <see cref="RampKind"/>.</summary>
+    public FieldState RampValue { get; }
+
     /// <summary>Modulator delay.</summary>
     public FieldState ModulatorDelay { get; }
+
+    /// <summary>Modulator delay as a fraction of the switching period (added to <see cref="ModulatorDelay"/>).</summary>
+    public FieldState ModulatorDelayFraction { get; }
+
+    /// <summary>Op-amp network: a real op-amp (finite gain and bandwidth) rather than an ideal one.</summary>
+    public bool RealOpAmp { get; set; }
+
+    /// <summary>Op-amp open-loop gain.</summary>
+    public FieldState OpenLoopGain { get; }
+
+    /// <summary>Op-amp gain-bandwidth product.</summary>
+    public FieldState GainBandwidth { get; }
+
+    /// <summary>Op-amp optional second pole.</summary>
+    public FieldState SecondPole { get; }
+
+    /// <summary>Transconductance amplifier gm.</summary>
+    public FieldState Transconductance { get; }
+
+    /// <summary>Transconductance amplifier output resistance.</summary>
+    public FieldState OtaOutputResistance { get; }
+
+    /// <summary>Which small-signal model the analysis uses.</summary>
+    public ConductionModelChoice ConductionModel { get; set; }
 
     /// <summary>Divider top resistor.</summary>
     public FieldState DividerTop { get; }
@@ -319,8 +373,16 @@ public sealed class DesignForm
                 }
 
                 list.AddRange(Capacitors.SelectMany(c => c.Fields));
-                list.Add(InputFeedforward ? FeedforwardRamp : RampAmplitude);
-                list.AddRange([ModulatorDelay, DividerTop, DividerBottom, Reference]);
+                if (Scheme == ControlScheme.PeakCurrentMode)
+                {
+                    list.AddRange([SenseGain, RampValue]);
+                }
+                else
+                {
+                    list.Add(InputFeedforward ? FeedforwardRamp : RampAmplitude);
+                }
+
+                list.AddRange([ModulatorDelay, ModulatorDelayFraction, DividerTop, DividerBottom, Reference]);
             }
 
             if (Mode == CompensatorMode.Placement)
@@ -328,9 +390,22 @@ public sealed class DesignForm
                 list.Add(GainValue);
                 list.AddRange(PlacementFrequencies);
             }
+            else if (Mode == CompensatorMode.Transconductance)
+            {
+                list.AddRange([Transconductance, OtaOutputResistance, C1]);
+                if (CompensatorType != CompensatorType.TypeI)
+                {
+                    list.AddRange([R2, C2]);
+                }
+            }
             else
             {
                 list.AddRange([R1, C1]);
+                if (RealOpAmp)
+                {
+                    list.AddRange([OpenLoopGain, GainBandwidth, SecondPole]);
+                }
+
                 if (CompensatorType != CompensatorType.TypeI)
                 {
                     list.AddRange([R2, C2]);
@@ -357,6 +432,24 @@ public sealed class DesignForm
 
     /// <summary>The unit of the gain value for a gain kind.</summary>
     public static string GainUnit(GainSettingKind kind) => kind == GainSettingKind.MidbandGainDb ? "dB" : "Hz";
+
+    /// <summary>The unit of the ramp value for a ramp kind (V/s, or a plain number for a multiple or mc).</summary>
+    public static string RampUnit(CompensationRampKind kind) => kind == CompensationRampKind.VoltsPerSecond ? "V/s" : string.Empty;
+
+    /// <summary>The unit shown beside the ramp value.</summary>
+    public static string RampDisplayUnit(CompensationRampKind kind) => kind switch
+    {
+        CompensationRampKind.VoltsPerSecond => "V/s",
+        CompensationRampKind.MultipleOfOffSlope => "× Sf",
+        _ => "mc",
+    };
+
+    /// <summary>Changes how the compensation ramp is entered, starting from <paramref name="startValue"/> (in the new kind's unit).</summary>
+    public void SetRampKind(CompensationRampKind kind, double? startValue)
+    {
+        RampKind = kind;
+        RampValue.Retarget(RampUnit(kind), startValue, RampDisplayUnit(kind));
+    }
 
     /// <summary>Changes what fixes the gain, starting from <paramref name="startValue"/> (Hz or dB) so that the loop stays where it was.</summary>
     public void SetGainKind(GainSettingKind kind, double? startValue)
@@ -421,10 +514,19 @@ public sealed class DesignForm
                 V(HighSideOn),
                 new Rectifier(Rectifier, V(RectifierOn), Rectifier == RectifierKind.Diode ? V(ForwardDrop) : 0.0),
                 V(MaxDutyCycle)),
-            new VoltageModeControl(V(RampAmplitude), InputFeedforward, V(FeedforwardRamp), V(ModulatorDelay)),
+            Scheme == ControlScheme.PeakCurrentMode
+                ? new PeakCurrentModeControl(V(SenseGain), new CompensationRamp(RampKind, V(RampValue)), V(ModulatorDelay), V(ModulatorDelayFraction))
+                : new VoltageModeControl(V(RampAmplitude), InputFeedforward, V(FeedforwardRamp), V(ModulatorDelay), V(ModulatorDelayFraction)),
             new FeedbackDivider(V(DividerTop), V(DividerBottom), V(Reference)));
 
-        Compensator compensator = Mode == CompensatorMode.Placement
+        Compensator compensator = Mode == CompensatorMode.Transconductance
+            ? new TransconductanceNetwork(
+                CompensatorType,
+                new Transconductance(V(Transconductance), V(OtaOutputResistance)),
+                V(C1),
+                CompensatorType == CompensatorType.TypeI ? 0.0 : V(R2),
+                CompensatorType == CompensatorType.TypeI ? 0.0 : V(C2))
+            : Mode == CompensatorMode.Placement
             ? new CompensatorPlacement(
                 CompensatorType,
                 new GainSetting(GainKind, V(GainValue)),
@@ -440,11 +542,12 @@ public sealed class DesignForm
                 CompensatorType == CompensatorType.TypeI ? 0.0 : V(C2),
                 CompensatorType == CompensatorType.TypeIII ? V(R3) : 0.0,
                 CompensatorType == CompensatorType.TypeIII ? V(C3) : 0.0,
-                V(RBottom));
+                V(RBottom),
+                RealOpAmp ? new OpAmp(V(OpenLoopGain), V(GainBandwidth), SecondPole.Value) : _idealAmplifier);
 
         var analysis = new AnalysisSettings(
             V(StartFrequency), V(StopFrequency), (int)V(Points), InputCorner, LoadCorner,
-            V(LoadStep), V(LoadStepSlew), V(ReferenceStep), StepDuration.Value, (int)V(StepSamples));
+            V(LoadStep), V(LoadStepSlew), V(ReferenceStep), StepDuration.Value, (int)V(StepSamples), ConductionModel);
         var criteria = new DesignCriteria(
             V(MinPhaseMargin), V(MinGainMargin), V(MaxCrossoverFraction), V(MinCrossover),
             MaxOvershoot.Value, MaxLoadStepDeviation.Value, V(MinRippleFraction), V(MaxRippleFraction));

@@ -89,10 +89,10 @@ public sealed class FieldState
     }
 
     /// <summary>Changes the unit (the compensator gain is Hz or dB by kind) and rereads the text.</summary>
-    public void Retarget(string unit, double? value)
+    public void Retarget(string unit, double? value, string? displayUnit = null)
     {
         Unit = unit;
-        DisplayUnit = unit;
+        DisplayUnit = displayUnit ?? unit;
         if (value is double v)
         {
             SetValue(v);

@@ -139,6 +139,7 @@ public sealed partial class BodeChart
         {
             nameof(BodeTraces.Loop) => Show with { Loop = on },
             nameof(BodeTraces.Plant) => Show with { Plant = on },
+            nameof(BodeTraces.IdealAmplifier) => Show with { IdealAmplifier = on },
             _ => Show with { Compensator = on },
         };
         OnParametersSet();

@@ -45,6 +45,10 @@ public partial class CompensatorEditor
         if (Enum.TryParse<CompensatorMode>(e.Value?.ToString(), out var mode))
         {
             Form.Mode = mode;
+            if (mode == CompensatorMode.Transconductance && Form.CompensatorType == CompensatorType.TypeIII)
+            {
+                Form.CompensatorType = CompensatorType.TypeII;
+            }
         }
 
         return OnChanged.InvokeAsync();
@@ -78,6 +82,12 @@ public partial class CompensatorEditor
             Form.SetGainKind(kind, start);
         }
 
+        return OnChanged.InvokeAsync();
+    }
+
+    private Task OnAmplifier(ChangeEventArgs e)
+    {
+        Form.RealOpAmp = bool.TryParse(e.Value?.ToString(), out var real) && real;
         return OnChanged.InvokeAsync();
     }
 

@@ -1,6 +1,7 @@
 using System.Globalization;
 using LoopShaper.Core.Analysis;
 using LoopShaper.Core.Design;
+using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Validation;
 using Microsoft.AspNetCore.Components;
 using static LoopShaper.Core.Units.EngineeringFormat;
@@ -71,4 +72,20 @@ public partial class SummaryPanel
         var c = Analysis?.Criteria.FirstOrDefault(x => x.Field == field);
         return c is null ? null : c.Passed ? "pass" : "fail";
     }
+
+    private static string ModelName(SmallSignalModel model) => model switch
+    {
+        SmallSignalModel.VoltageModeContinuous or SmallSignalModel.PeakCurrentModeContinuous => "CCM",
+        SmallSignalModel.VoltageModeDiscontinuous or SmallSignalModel.PeakCurrentModeDiscontinuous => "DCM",
+        _ => "custom",
+    };
+
+    private static string ModelDetail(SmallSignalModel model) => model switch
+    {
+        SmallSignalModel.VoltageModeContinuous => "voltage mode, averaged CCM model",
+        SmallSignalModel.VoltageModeDiscontinuous => "voltage mode, averaged DCM model (Sun et al. 2001)",
+        SmallSignalModel.PeakCurrentModeContinuous => "peak current mode, Ridley 1991",
+        SmallSignalModel.PeakCurrentModeDiscontinuous => "peak current mode, averaged DCM model",
+        _ => "custom plant",
+    };
 }

@@ -139,9 +139,13 @@ public sealed partial class Designer : IDisposable
         return Workspace.RecomputeAsync();
     }
 
-    private Task OnFeedforward(ChangeEventArgs e)
+    private Task OnConductionModel(ChangeEventArgs e)
     {
-        Form.InputFeedforward = e.Value is bool b && b;
+        if (Enum.TryParse<ConductionModelChoice>(e.Value?.ToString(), out var model))
+        {
+            Form.ConductionModel = model;
+        }
+
         return Workspace.RecomputeAsync();
     }
 

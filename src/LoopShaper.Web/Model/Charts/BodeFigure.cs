@@ -33,6 +33,12 @@ public static class BodeFigure
     /// <summary>Compensator trace name.</summary>
     public const string CompensatorName = "compensator Gc";
 
+    /// <summary>Compensator trace name with an ideal amplifier.</summary>
+    public const string IdealCompensatorName = "Gc, ideal amplifier";
+
+    /// <summary>Loop trace name with an ideal amplifier.</summary>
+    public const string IdealLoopName = "T, ideal amplifier";
+
     /// <summary>Most points drawn per trace.</summary>
     public const int MaxPoints = 500;
 
@@ -54,6 +60,11 @@ public static class BodeFigure
         AddResponse(data, loop, LoopName, ChartPalette.Loop, "solid", 3.2m, show.Loop);
         AddResponse(data, plant, PlantName, ChartPalette.Plant, "dash", 2.4m, show.Plant);
         AddResponse(data, comp, CompensatorName, ChartPalette.Compensator, "dot", 2.6m, show.Compensator);
+        if (analysis.IdealAmplifierLoopResponse is FrequencyResponse idealLoop && analysis.IdealAmplifierCompensatorResponse is FrequencyResponse idealComp)
+        {
+            AddResponse(data, idealLoop, IdealLoopName, ChartPalette.Loop, "dashdot", 1.6m, show.IdealAmplifier);
+            AddResponse(data, idealComp, IdealCompensatorName, ChartPalette.Compensator, "dashdot", 1.6m, show.IdealAmplifier);
+        }
         if (show.Loop)
         {
             visible.Add(loop);
