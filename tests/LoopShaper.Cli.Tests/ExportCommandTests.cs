@@ -184,9 +184,13 @@ public class ExportCommandTests
             Assert.Equal(p.Role, e[p.Designator].Role);
         }
 
-        // The example's own values are preferred values (22k in E24, 3.3 nF and 47 pF in E12, IEC 60063), so the
-        // synthesis from the placement they give lands on them again.
-        Assert.Equal(22e3, e["R2"].Value, 1e-6);
+        // The synthesis starts from the placement the example's own values give, so the parts land on them again
+        // where the series holds them (IEC 60063): 3.3 nF and 47 pF are E12; 22 kOhm is E24 but not E96 (the default
+        // series here), whose nearest value is 22.1 kOhm.
+        Assert.Equal(22.1e3, e["R2"].Value, 1e-6);
+        var e24 = PartsListCsv.Parse((await CliRun.Of("export", example, "--parts", "--series", "E24")).Output).ToDictionary(x => x.Designator);
+        Assert.Equal(22e3, e24["R2"].Value, 1e-6);
+        Assert.Equal(ESeries.E24, e24["R2"].Series);
         Assert.Equal(3.3e-9, e["C1"].Value, 1e-18);
         Assert.Equal(47e-12, e["C2"].Value, 1e-20);
 

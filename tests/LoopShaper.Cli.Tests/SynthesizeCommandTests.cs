@@ -232,7 +232,7 @@ public class SynthesizeCommandTests
         using var doc = await Json("synthesize", example);
         var root = doc.RootElement;
         Assert.Equal("typeII", root.GetProperty("compensatorType").GetString());
-        var designators = root.GetProperty("parts").EnumerateArray().Select(p => p.GetProperty("designator").GetString()).ToArray();
+        var designators = root.GetProperty("parts").EnumerateArray().Select(p => p.GetProperty("designator").GetString()!).ToArray();
         Assert.Equal(["R2", "C1", "C2"], designators);
         Assert.Equal(expected.MeetsCriteria, root.GetProperty("meetsCriteria").GetBoolean());
     }
