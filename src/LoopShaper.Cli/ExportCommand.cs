@@ -52,6 +52,31 @@ internal static class ExportCommand
                 return ExitCodes.InvalidInput;
             }
 
+            if (design.Compensator is TransconductanceNetwork)
+            {
+                if (wantLoop)
+                {
+                    error.WriteLine($"{path}: error: $.compensator.form: the averaged-loop netlist is written for an op-amp compensator; export the OTA network with --netlist alone.");
+                    return ExitCodes.InvalidInput;
+                }
+
+                if (!DesignSynthesizer.TrySynthesizeOta(design, options, out var ota, out var otaIssues))
+                {
+                    DesignLoader.ReportAll(error, path, otaIssues.Where(i => i.Severity == Severity.Error));
+                    return ExitCodes.InvalidInput;
+                }
+
+                var divider = ota!.BuiltDesign.Plant is Core.PlantModels.BuckPlant b ? b.Feedback : null;
+                if (wantNetlist && divider is null)
+                {
+                    error.WriteLine($"{path}: error: $.plant: the OTA netlist needs the buck's feedback divider; a custom plant has none.");
+                    return ExitCodes.InvalidInput;
+                }
+
+                string otaText = wantParts ? PartsListCsv.Write(ota.Synthesis) : SpiceNetlist.Compensator(ota.Synthesis.SnappedNetwork, divider!, design.Name);
+                return DesignLoader.Emit(otaText, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
+            }
+
             OpAmpNetwork network;
             NetworkSynthesis? synthesised = null;
             if (design.Compensator is OpAmpNetwork given)
@@ -61,18 +86,13 @@ internal static class ExportCommand
             else if (DesignSynthesizer.TrySynthesize(design, options, out var result, out var issues))
             {
                 synthesised = result!.Synthesis;
-                network = synthesised.ChosenNetwork;
+                network = (OpAmpNetwork)result.BuiltDesign.Compensator;
                 design = result.BuiltDesign;
             }
             else
             {
                 DesignLoader.ReportAll(error, path, issues.Where(i => i.Severity == Severity.Error));
                 return ExitCodes.InvalidInput;
-            }
-
-            if (wantNetlist && !design.Compensator.HasIdealAmplifier)
-            {
-                error.WriteLine($"{path}: warning: $.compensator.amplifier: the netlist takes an ideal amplifier (an E source of {SpiceNetlist.DefaultAmplifierGain:G3} V/V); the design's op-amp is not modelled in it.");
             }
 
             string text = wantParts

@@ -80,12 +80,13 @@ public class ExportCommandTests
         Assert.Contains($"* design: {design.Name}", run.Output, StringComparison.Ordinal);
 
         var network = await ExportedNetwork(example, design);
-        // The netlist's amplifier is ideal: a design's finite-gain op-amp is named in a warning and left out, so the
-        // reference is the network with an ideal amplifier.
-        Assert.Equal(network.HasIdealAmplifier ? string.Empty : $"{RepoFiles.Example(example)}: warning: $.compensator.amplifier: the netlist takes an ideal amplifier (an E source of 1E+09 V/V); the design's op-amp is not modelled in it.\n", run.Error);
+        // The netlist models the design's own amplifier (ideal E source, or the op-amp macro-model with A0, GBW and
+        // any second pole), so the reference is the core's Gc with that amplifier, and nothing is warned.
+        Assert.Equal(string.Empty, run.Error);
+        Assert.Equal(network.HasIdealAmplifier, !run.Output.Contains("op-amp macro-model", StringComparison.Ordinal));
         var points = Ngspice.RunAc(run.Output, "v(gc)");
         Assert.Equal(241, points.Count);
-        Compare(network.IdealTransferFunction(), points, example);
+        Compare(network.TransferFunction(), points, example);
     }
 
     [Theory]
@@ -165,15 +166,42 @@ public class ExportCommandTests
     }
 
     [Fact]
-    public async Task An_ota_compensator_has_no_export_here()
+    public async Task An_ota_compensator_exports_its_parts_and_netlist()
     {
+        // The peak current-mode example has an OTA Type II compensator (gm = 1 mS, Ro = 5 MOhm, R2 22k, C1 3.3 nF, C2 47 pF).
         string example = RepoFiles.Example("pol-12v-to-3v3-peak-current-mode.json");
-        foreach (string mode in new[] { "--parts", "--netlist" })
+        var design = DesignFile.Read(File.ReadAllText(example)).Design!;
+        Assert.True(DesignSynthesizer.TrySynthesizeOta(design, DesignSynthesizer.OptionsOf(design), out var expected, out _));
+
+        var parts = await CliRun.Of("export", example, "--parts");
+        Assert.Equal(0, parts.ExitCode);
+        var e = PartsListCsv.Parse(parts.Output).ToDictionary(x => x.Designator);
+        Assert.Equal(["C1", "C2", "R2"], e.Keys.Order(StringComparer.Ordinal));
+        foreach (var p in expected!.Synthesis.Parts)
         {
-            var run = await CliRun.Of("export", example, mode);
-            Assert.Equal(2, run.ExitCode);
-            Assert.StartsWith($"{example}: error: $.compensator.form: the parts synthesis makes op-amp Type I, II and III networks", run.Error, StringComparison.Ordinal);
+            Assert.Equal(p.Value.Value, e[p.Designator].Value, 1e-12 * p.Value.Value);
+            Assert.Equal(p.Kind, e[p.Designator].Kind);
+            Assert.Equal(p.Role, e[p.Designator].Role);
         }
+
+        // The synthesis starts from the placement the example's own values give, so the parts land on them again
+        // where the series holds them (IEC 60063): 3.3 nF and 47 pF are E12; 22 kOhm is E24 but not E96 (the default
+        // series here), whose nearest value is 22.1 kOhm.
+        Assert.Equal(22.1e3, e["R2"].Value, 1e-6);
+        var e24 = PartsListCsv.Parse((await CliRun.Of("export", example, "--parts", "--series", "E24")).Output).ToDictionary(x => x.Designator);
+        Assert.Equal(22e3, e24["R2"].Value, 1e-6);
+        Assert.Equal(ESeries.E24, e24["R2"].Series);
+        Assert.Equal(3.3e-9, e["C1"].Value, 1e-18);
+        Assert.Equal(47e-12, e["C2"].Value, 1e-20);
+
+        var netlist = await CliRun.Of("export", example, "--netlist");
+        Assert.Equal(0, netlist.ExitCode);
+        Assert.Contains("transconductance (OTA) network", netlist.Output, StringComparison.Ordinal);
+        var built = (TransconductanceNetwork)expected.BuiltDesign.Compensator;
+        Compare(built.TransferFunction(), Ngspice.RunAc(netlist.Output, "v(gc)"), "OTA example");
+
+        var loop = await CliRun.Of("export", example, "--netlist", "--loop");
+        Assert.Equal(2, loop.ExitCode);
     }
 
     public static TheoryData<string> OpAmpExamples() => SynthesizeCommandTests.OpAmpExamples();

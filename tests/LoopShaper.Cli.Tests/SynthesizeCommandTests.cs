@@ -217,15 +217,24 @@ public class SynthesizeCommandTests
     }
 
     [Fact]
-    public async Task An_ota_compensator_is_refused_with_the_field_named()
+    public async Task An_ota_compensator_is_synthesised_with_gm_fixed()
     {
-        // The peak current-mode example has a transconductance (OTA) compensator: not synthesised by this command.
+        // The peak current-mode example has a transconductance (OTA) Type II compensator: R2, C1, C2 from its placement
+        // with gm = 1 mS fixed, snapped, and the design analysed again with them.
         string example = RepoFiles.Example("pol-12v-to-3v3-peak-current-mode.json");
-        Assert.IsType<TransconductanceNetwork>(DesignFile.Read(File.ReadAllText(example)).Design!.Compensator);
+        var design = DesignFile.Read(File.ReadAllText(example)).Design!;
+        Assert.IsType<TransconductanceNetwork>(design.Compensator);
+        Assert.True(DesignSynthesizer.TrySynthesizeOta(design, DesignSynthesizer.OptionsOf(design), out var expected, out _));
         var run = await CliRun.Of("synthesize", example);
-        Assert.Equal(2, run.ExitCode);
-        Assert.Equal(string.Empty, run.Output);
-        Assert.StartsWith($"{example}: error: $.compensator.form: the parts synthesis makes op-amp Type I, II and III networks; a transconductance (OTA) compensator is not synthesised here yet", run.Error, StringComparison.Ordinal);
+        Assert.Equal(expected!.MeetsCriteria ? 0 : 1, run.ExitCode);
+        Assert.Equal(string.Empty, run.Error);
+
+        using var doc = await Json("synthesize", example);
+        var root = doc.RootElement;
+        Assert.Equal("typeII", root.GetProperty("compensatorType").GetString());
+        var designators = root.GetProperty("parts").EnumerateArray().Select(p => p.GetProperty("designator").GetString()!).ToArray();
+        Assert.Equal(["R2", "C1", "C2"], designators);
+        Assert.Equal(expected.MeetsCriteria, root.GetProperty("meetsCriteria").GetBoolean());
     }
 
     [Fact]

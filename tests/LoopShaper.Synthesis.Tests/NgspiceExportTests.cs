@@ -19,7 +19,7 @@ public class NgspiceExportTests
     private const double PhaseToleranceDeg = 0.05;
 
     /// <summary>Snapped networks synthesised for the test buck: K-factor placements at 60 kHz.</summary>
-    private static OpAmpNetwork Network(CompensatorType type)
+    internal static OpAmpNetwork Network(CompensatorType type)
     {
         var plant = TestPlants.BuckPlant();
         var (fc, pm) = type switch
@@ -111,7 +111,7 @@ public class NgspiceExportTests
         Assert.Throws<ArgumentOutOfRangeException>(() => SpiceNetlist.Compensator(n, "x", null, double.NaN));
     }
 
-    private static void Compare(Core.TransferFunctions.TransferFunction h, List<(double FrequencyHz, Complex Value)> points, string name)
+    internal static void Compare(Core.TransferFunctions.TransferFunction h, List<(double FrequencyHz, Complex Value)> points, string name)
     {
         // The reference phase is the principal value at 10 Hz, then unwrapped point by point; ours is continuous by
         // construction, so the two must agree without any offset.

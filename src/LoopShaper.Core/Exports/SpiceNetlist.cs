@@ -9,7 +9,7 @@ using static LoopShaper.Core.Units.EngineeringFormat;
 namespace LoopShaper.Core.Exports;
 
 /// <summary>
-/// SPICE netlists in plain SPICE3 syntax (full-line comments, R, L, C, V, E and T elements, `.ac`, `.print`, `.end`),
+/// SPICE netlists in plain SPICE3 syntax (full-line comments, R, L, C, V, E, G and T elements, `.ac`, `.print`, `.end`),
 /// which ngspice runs unmodified (`ngspice -b file.cir`). Part names match the parts list (R1, R2, R3, R4, C1, C2, C3).
 /// </summary>
 public static class SpiceNetlist
@@ -20,16 +20,27 @@ public static class SpiceNetlist
     /// <summary>Characteristic impedance of the matched line that makes a modulator delay, ohms (any value works; the line is matched at both ends).</summary>
     private const double DelayLineOhm = 50.0;
 
+    /// <summary>Resistor of each buffered R-C pole stage of the op-amp macro-model, ohms (any value works; the stage is buffered).</summary>
+    private const double PoleStageOhm = 1e3;
+
     /// <summary>
     /// The op-amp network around an ideal high-gain amplifier, for an AC analysis: Vin drives the network's input
     /// (the converter output side of R1) with 1 V AC, the amplifier is E1 = A (0 - v(inv)), and v(gc) = -v(comp) is
     /// Gc(s) as LoopShaper shows it (the amplifier's inversion taken out). DC and the reference are left out (small signal).
     /// </summary>
+    /// <remarks>
+    /// When the network's amplifier is an <see cref="OpAmp"/>, the amplifier is its macro-model instead:
+    /// A(s) = A0 / ((1 + s/wa)(1 + s/w2)) as a VCVS of gain A0 into an R-C pole at fa = GBW / A0, an optional second
+    /// buffered R-C pole at f2, and a unity buffer to the output (Basso 2012, ch. 3, op-amp non-idealities).
+    /// </remarks>
     public static string Compensator(OpAmpNetwork network, string designName, SpiceSweep? sweep = null, double amplifierGain = DefaultAmplifierGain)
     {
         var s = Check(sweep, amplifierGain);
         var w = new Writer();
-        w.Comment($"LoopShaper compensator netlist: {Describe(network.Type)} op-amp network around an ideal amplifier (E source, gain {amplifierGain.ToString("G3", CultureInfo.InvariantCulture)} V/V)");
+        string amp = network.Amplifier is OpAmp a
+            ? string.Create(CultureInfo.InvariantCulture, $"an op-amp macro-model (A0 = {a.OpenLoopGain:G4} V/V, GBW = {Format(a.GainBandwidthHz, "Hz", 4)}{(a.SecondPoleHz is double f2 ? ", second pole " + Format(f2, "Hz", 4) : "")})")
+            : $"an ideal amplifier (E source, gain {amplifierGain.ToString("G3", CultureInfo.InvariantCulture)} V/V)";
+        w.Comment($"LoopShaper compensator netlist: {Describe(network.Type)} op-amp network around {amp}");
         w.Comment($"design: {Clean(designName)}");
         w.Comment($"written by LoopShaper {Version()}; plain SPICE3, run with: ngspice -b this-file.cir");
         w.Comment("small-signal AC only: the reference and every DC level are left out");
@@ -203,8 +214,86 @@ public static class SpiceNetlist
             w.Line($"R4 inv 0 {N(n.RBottomOhm)}");
         }
 
+        if (n.Amplifier is OpAmp a)
+        {
+            OpAmpLines(w, a);
+            return;
+        }
+
         w.Comment("ideal amplifier: non-inverting input at AC ground, v(comp) = A (0 - v(inv))");
         w.Line($"Eamp comp 0 0 inv {N(gain)}");
+    }
+
+    /// <summary>Op-amp macro-model: v(pa) = A0 (0 - v(inv)), R-C pole at fa, optional buffered R-C pole at f2, unity buffer to comp.</summary>
+    private static void OpAmpLines(Writer w, OpAmp a)
+    {
+        w.Comment($"op-amp macro-model: gain stage A0 = {N(a.OpenLoopGain)} V/V, non-inverting input at AC ground");
+        w.Line($"Eamp pa 0 0 inv {N(a.OpenLoopGain)}");
+        w.Comment($"dominant pole fa = GBW / A0 = {Format(a.DominantPoleHz, "Hz", 4)}: Rpa Cpa = 1 / (2 pi fa)");
+        w.Line($"Rpa pa pb {N(PoleStageOhm)}");
+        w.Line($"Cpa pb 0 {N(1.0 / (2 * Math.PI * a.DominantPoleHz * PoleStageOhm))}");
+        string last = "pb";
+        if (a.SecondPoleHz is double f2)
+        {
+            w.Comment($"second pole f2 = {Format(f2, "Hz", 4)}, buffered from the first");
+            w.Line("Ebuf2 pc 0 pb 0 1");
+            w.Line($"Rpb pc pd {N(PoleStageOhm)}");
+            w.Line($"Cpb pd 0 {N(1.0 / (2 * Math.PI * f2 * PoleStageOhm))}");
+            last = "pd";
+        }
+
+        w.Comment("output buffer: the pole stages are not loaded by the network");
+        w.Line($"Eout comp 0 {last} 0 1");
+    }
+
+    /// <summary>
+    /// The transconductance (OTA) compensator for an AC analysis: Vin drives the divider Rtop over Rbot (the plant's
+    /// feedback divider, Hdiv = Rbot / (Rtop + Rbot)), the amplifier is a VCCS of gm, current gm (0 - v(fb)) into comp,
+    /// loaded by Ro in parallel with the network to ground (C1, or R2 + C1 in parallel with C2). v(gc) = -v(comp) / Hdiv
+    /// is Gc(s) as LoopShaper shows it (from the divided output, the inversion taken out); v(gcout) = -v(comp) is
+    /// Hdiv Gc(s), from the converter output (Basso 2012, ch. 3, OTA compensators).
+    /// </summary>
+    public static string Compensator(TransconductanceNetwork network, FeedbackDivider divider, string designName, SpiceSweep? sweep = null)
+    {
+        var s = Check(sweep, DefaultAmplifierGain);
+        if (!(divider.TopOhm > 0) || !(divider.BottomOhm > 0) || !double.IsFinite(divider.TopOhm) || !double.IsFinite(divider.BottomOhm))
+        {
+            throw new ArgumentOutOfRangeException(nameof(divider), "The divider needs finite positive top and bottom resistors.");
+        }
+
+        _ = network.ToPlacement();
+        var a = network.Amplifier;
+        var w = new Writer();
+        w.Comment(string.Create(CultureInfo.InvariantCulture, $"LoopShaper compensator netlist: {Describe(network.Type)} transconductance (OTA) network, gm = {Format(a.TransconductanceS, "S", 4)}, Ro = {Format(a.OutputResistanceOhm, "Ohm", 4)}"));
+        w.Comment($"design: {Clean(designName)}");
+        w.Comment($"written by LoopShaper {Version()}; plain SPICE3, run with: ngspice -b this-file.cir");
+        w.Comment("small-signal AC only: the reference and every DC level are left out");
+        w.Comment("read: v(gc) = Gc(s) from the divided output fb, the inversion taken out; v(gcout) = Hdiv Gc(s) from the converter output");
+        w.Comment("input: node in is the converter output (the top of the divider)");
+        w.Line("Vin in 0 DC 0 AC 1");
+        w.Comment("feedback divider ahead of the amplifier");
+        w.Line($"Rtop in fb {N(divider.TopOhm)}");
+        w.Line($"Rbot fb 0 {N(divider.BottomOhm)}");
+        w.Comment("OTA: current gm (0 - v(fb)) into comp (reference at AC ground), output resistance Ro");
+        w.Line($"Gota comp 0 fb 0 {N(a.TransconductanceS)}");
+        w.Line($"Ro comp 0 {N(a.OutputResistanceOhm)}");
+        w.Comment($"{Describe(network.Type)} network from comp to ground");
+        if (network.Type == CompensatorType.TypeI)
+        {
+            w.Line($"C1 comp 0 {N(network.C1F)}");
+        }
+        else
+        {
+            w.Line($"R2 comp n2 {N(network.R2Ohm)}");
+            w.Line($"C1 n2 0 {N(network.C1F)}");
+            w.Line($"C2 comp 0 {N(network.C2F)}");
+        }
+
+        w.Comment("Gc as LoopShaper shows it, and from the converter output");
+        w.Line($"Egc gc 0 comp 0 {N(-1.0 / divider.Ratio)}");
+        w.Line("Egcout gcout 0 comp 0 -1");
+        Footer(w, s, "vdb(gc) vp(gc) vdb(gcout) vp(gcout)");
+        return w.ToString();
     }
 
     private static void Footer(Writer w, SpiceSweep s, string print)

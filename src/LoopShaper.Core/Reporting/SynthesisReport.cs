@@ -121,6 +121,49 @@ public sealed record SynthesisReport
         };
     }
 
+    /// <summary>The report of an OTA design synthesis (no neighbour search: the snapped parts are the chosen ones).</summary>
+    public static SynthesisReport From(OtaDesignSynthesis result)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        var s = result.Synthesis;
+        var built = result.BuiltAnalysis;
+        var warnings = s.Warnings
+            .Concat(built.Issues.Where(i => i.Severity == Validation.Severity.Warning).Select(i => $"{IssueReport.PathOf(i.Field)}: {i.Message}"))
+            .Concat(built.Warnings)
+            .Distinct(StringComparer.Ordinal);
+        return new SynthesisReport
+        {
+            Name = result.Design.Name,
+            CompensatorType = TypeWord(s.IdealNetwork.Type),
+            ResistorSeries = result.Options.ResistorSeries.ToString(),
+            CapacitorSeries = result.Options.CapacitorSeries.ToString(),
+            SearchNeighbours = false,
+            SearchSteps = result.Options.SearchSteps,
+            TargetCrossoverHz = AnalysisReport.Finite(s.TargetCrossoverHz),
+            TargetPhaseMarginDeg = AnalysisReport.Finite(s.TargetPhaseMarginDeg),
+            Parts = [.. s.Parts.Select(p => new SynthesisPartReport(
+                p.Designator,
+                p.Kind == PartKind.Resistor ? "resistor" : "capacitor",
+                p.Unit,
+                p.Role,
+                AnalysisReport.Finite(p.Value.IdealValue),
+                AnalysisReport.Finite(p.Value.Value),
+                AnalysisReport.Finite(p.Value.ErrorPct),
+                AnalysisReport.Finite(p.Value.Value),
+                AnalysisReport.Finite(p.Value.ErrorPct),
+                p.Value.Series.ToString(),
+                AnalysisReport.Finite(p.Tolerance.TolerancePct)))],
+            Ideal = PerformanceOf(s.Ideal),
+            Snapped = PerformanceOf(s.Snapped),
+            Searched = null,
+            SearchCandidates = null,
+            MeetsCriteria = result.MeetsCriteria,
+            Criteria = [.. built.Criteria.Select(c => new CriterionReport(c.Name, IssueReport.PathOf(c.Field), c.Passed, c.Actual, c.Limit))],
+            Warnings = [.. warnings],
+            Derivations = [.. s.Derivations.Select(DerivationOf)],
+        };
+    }
+
     /// <summary>The design-file word of a compensator type.</summary>
     internal static string TypeWord(CompensatorType type) => type switch { Compensators.CompensatorType.TypeI => "typeI", Compensators.CompensatorType.TypeII => "typeII", _ => "typeIII" };
 

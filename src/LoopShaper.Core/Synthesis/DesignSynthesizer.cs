@@ -25,7 +25,7 @@ public static class DesignSynthesizer
         issues = [.. DesignValidator.Validate(design), .. NetworkSynthesizer.Validate(options)];
         if (design.Compensator is TransconductanceNetwork)
         {
-            issues = issues.Add(new ValidationIssue("compensator.form", "the parts synthesis makes op-amp Type I, II and III networks; a transconductance (OTA) compensator is not synthesised here yet: give its parts in the design file."));
+            issues = issues.Add(new ValidationIssue("compensator.form", "this synthesis makes op-amp Type I, II and III networks; a transconductance (OTA) compensator goes through TrySynthesizeOta."));
         }
 
         if (issues.Any(i => i.Severity == Severity.Error))
@@ -53,6 +53,60 @@ public static class DesignSynthesizer
         }
 
         result = new DesignSynthesis(design, options, synthesis, built, analysis);
+        return true;
+    }
+
+    /// <summary>
+    /// Synthesises the OTA Type II network of a design whose compensator is a <see cref="TransconductanceNetwork"/>
+    /// (gm and Ro from its amplifier, the placement its parts give with Ro infinite) and re-analyses the design with the
+    /// snapped parts; false with the reasons (field-named) otherwise.
+    /// </summary>
+    public static bool TrySynthesizeOta(LoopDesign design, SynthesisOptions options, out OtaDesignSynthesis? result, out ImmutableArray<ValidationIssue> issues)
+    {
+        result = null;
+        issues = [.. DesignValidator.Validate(design), .. NetworkSynthesizer.Validate(options)];
+        if (design.Compensator is not TransconductanceNetwork ota)
+        {
+            issues = issues.Add(new ValidationIssue("compensator.form", "the OTA synthesis needs a transconductance compensator (compensator.form = ota)."));
+        }
+        else if (ota.Type != CompensatorType.TypeII)
+        {
+            issues = issues.Add(new ValidationIssue("compensator.type", $"the OTA synthesis makes a Type II network; this compensator is {ota.Type}: allowed typeII."));
+        }
+
+        if (issues.Any(i => i.Severity == Severity.Error))
+        {
+            return false;
+        }
+
+        var g = (TransconductanceNetwork)design.Compensator;
+        OtaNetworkSynthesis synthesis;
+        try
+        {
+            var loop = DesignAnalyzer.BuildLoop(design).Loop;
+            var rest = loop.Modulator.Multiply(loop.ControlToOutput).Scale(loop.SenseGain);
+            var o = options with
+            {
+                StartHz = options.StartHz ?? design.Analysis.StartHz,
+                StopHz = options.StopHz ?? design.Analysis.StopHz,
+            };
+            synthesis = OtaNetworkSynthesizer.Synthesize(rest, g.ToPlacement(), g.Amplifier, o);
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+        {
+            issues = issues.Add(new ValidationIssue("compensator", "no OTA network was synthesised: " + ex.Message.Split(" (Parameter")[0]));
+            return false;
+        }
+
+        var built = design with { Compensator = synthesis.SnappedNetwork };
+        var analysis = DesignAnalyzer.Analyze(built);
+        if (!analysis.IsValid)
+        {
+            issues = issues.AddRange(analysis.Issues.Where(i => i.Severity == Severity.Error));
+            return false;
+        }
+
+        result = new OtaDesignSynthesis(design, options, synthesis, built, analysis);
         return true;
     }
 

@@ -1,0 +1,42 @@
+using System.Collections.Immutable;
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Derivations;
+
+namespace LoopShaper.Core.Synthesis;
+
+/// <summary>
+/// The result of an OTA component synthesis: the ideal network (gm fixed), every part snapped to its series and the loop
+/// analysed with both (with the amplifier's output resistance).
+/// </summary>
+public sealed record OtaNetworkSynthesis
+{
+    /// <summary>The placement the parts realise with Ro infinite, its gain as an integrator frequency (from the divided output).</summary>
+    public required CompensatorPlacement Placement { get; init; }
+
+    /// <summary>The network with the exact values.</summary>
+    public required TransconductanceNetwork IdealNetwork { get; init; }
+
+    /// <summary>The network with every part at its nearest preferred value: the network to build.</summary>
+    public required TransconductanceNetwork SnappedNetwork { get; init; }
+
+    /// <summary>Every part: ideal value, nearest preferred value, error and tolerance.</summary>
+    public required ImmutableArray<SynthesizedPart> Parts { get; init; }
+
+    /// <summary>The loop with the ideal parts.</summary>
+    public required LoopPerformance Ideal { get; init; }
+
+    /// <summary>The loop with the snapped parts.</summary>
+    public required LoopPerformance Snapped { get; init; }
+
+    /// <summary>Crossover the synthesis aims for, Hz.</summary>
+    public required double TargetCrossoverHz { get; init; }
+
+    /// <summary>Phase margin the synthesis aims for, degrees.</summary>
+    public required double TargetPhaseMarginDeg { get; init; }
+
+    /// <summary>Each value computed, with its formula and source.</summary>
+    public required ImmutableArray<Derivation> Derivations { get; init; }
+
+    /// <summary>Impractical values and missed targets, in words.</summary>
+    public required ImmutableArray<string> Warnings { get; init; }
+}

@@ -1,0 +1,76 @@
+using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Exports;
+using LoopShaper.Core.Synthesis;
+
+namespace LoopShaper.Synthesis.Tests;
+
+/// <summary>OTA Type II synthesis with gm fixed (Basso 2012, ch. 3, OTA Type II; the inverse is exact algebra).</summary>
+public class OtaSynthesisTests
+{
+    private static readonly Transconductance Ota = new(1e-3, 5e6);
+
+    /// <summary>Placements of our own scenario: fi, fz, fp in Hz.</summary>
+    public static TheoryData<double, double, double> Placements => new()
+    {
+        { 2e3, 3e3, 150e3 },
+        { 500.0, 800.0, 40e3 },
+        { 20e3, 10e3, 1e6 },
+    };
+
+    [Theory]
+    [MemberData(nameof(Placements))]
+    public void Placement_to_parts_to_placement_is_exact(double fi, double fz, double fp)
+    {
+        var placement = new CompensatorPlacement(CompensatorType.TypeII, new GainSetting(GainSettingKind.IntegratorHz, fi), Zero1Hz: fz, Pole1Hz: fp);
+        var r = OtaNetworkSynthesizer.Synthesize(TestPlants.BuckPlant(), placement, Ota, new SynthesisOptions());
+        var back = r.IdealNetwork.ToPlacement();
+        Assert.Equal(1.0, back.Gain.Value / fi, 1e-9);
+        Assert.Equal(1.0, back.Zero1Hz!.Value / fz, 1e-9);
+        Assert.Equal(1.0, back.Pole1Hz!.Value / fp, 1e-9);
+        Assert.Equal(GainSettingKind.IntegratorHz, back.Gain.Kind);
+
+        // The same inverse on plain numbers (OtaSynthesis with Hdiv = 1) gives the same parts.
+        var plain = OtaSynthesis.TypeII(Ota.TransconductanceS, 1.0, fi, fz, fp);
+        Assert.Equal(plain.R2Ohm, r.IdealNetwork.R2Ohm, 1e-9 * plain.R2Ohm);
+        Assert.Equal(plain.C1F, r.IdealNetwork.C1F, 1e-9 * plain.C1F);
+        Assert.Equal(plain.C2F, r.IdealNetwork.C2F, 1e-9 * plain.C2F);
+    }
+
+    [Fact]
+    public void Parts_snap_to_the_chosen_series_with_designators_and_roles()
+    {
+        var placement = new CompensatorPlacement(CompensatorType.TypeII, new GainSetting(GainSettingKind.IntegratorHz, 2e3), Zero1Hz: 3e3, Pole1Hz: 150e3);
+        var r = OtaNetworkSynthesizer.Synthesize(TestPlants.BuckPlant(), placement, Ota, new SynthesisOptions { ResistorSeries = ESeries.E24, CapacitorSeries = ESeries.E6 });
+        Assert.Equal(["R2", "C1", "C2"], r.Parts.Select(p => p.Designator));
+        Assert.All(r.Parts, p => Assert.True(StandardValues.IsPreferred(p.Value.Value, p.Kind == PartKind.Resistor ? ESeries.E24 : ESeries.E6)));
+        Assert.All(r.Parts, p => Assert.False(string.IsNullOrWhiteSpace(p.Role)));
+        Assert.Equal(r.Parts.First(p => p.Designator == "R2").Value.Value, r.SnappedNetwork.R2Ohm);
+        Assert.Equal(Ota, r.SnappedNetwork.Amplifier);
+
+        // Both loops analysed: snapped parts move the crossover a little, not a lot (E6 steps are at most ~+-23 %).
+        Assert.NotNull(r.Ideal.CrossoverHz);
+        Assert.NotNull(r.Snapped.CrossoverHz);
+        Assert.InRange(r.Snapped.CrossoverHz!.Value / r.Ideal.CrossoverHz!.Value, 0.7, 1.4);
+
+        // Parts CSV parsed back gives the same values.
+        var back = PartsListCsv.Parse(PartsListCsv.Write(r)).ToDictionary(e => e.Designator);
+        Assert.All(r.Parts, p => Assert.Equal(p.Value.Value, back[p.Designator].Value, 1e-12 * p.Value.Value));
+    }
+
+    [Fact]
+    public void Impractical_values_and_bad_placements_are_named()
+    {
+        // gm = 1 mS with fi = 200 kHz: C1 + C2 = gm / (2 pi fi) = 796 pF and fz/fp = 1/100 gives C2 = 8 pF, below 10 pF.
+        var placement = new CompensatorPlacement(CompensatorType.TypeII, new GainSetting(GainSettingKind.IntegratorHz, 200e3), Zero1Hz: 1e3, Pole1Hz: 100e3);
+        var r = OtaNetworkSynthesizer.Synthesize(TestPlants.BuckPlant(), placement, Ota, new SynthesisOptions());
+        Assert.Contains(r.Warnings, w => w.StartsWith("C2 = ", StringComparison.Ordinal) && w.Contains("below 10 pF", StringComparison.Ordinal));
+        // R2 = 1 / (2 pi fz C1) = 1 / (2 pi 1 kHz 788 pF) = 202 kOhm: practical, no warning for it.
+        Assert.DoesNotContain(r.Warnings, w => w.StartsWith("R2 = ", StringComparison.Ordinal));
+
+        var inverted = placement with { Pole1Hz = 500.0 };
+        var ex = Assert.Throws<ArgumentException>(() => OtaNetworkSynthesizer.Synthesize(TestPlants.BuckPlant(), inverted, Ota, new SynthesisOptions()));
+        Assert.Contains("pole above its zero", ex.Message, StringComparison.Ordinal);
+        var typeIII = new CompensatorPlacement(CompensatorType.TypeIII, new GainSetting(GainSettingKind.IntegratorHz, 1e3), 1e3, 2e3, 50e3, 100e3);
+        Assert.Throws<ArgumentException>(() => OtaNetworkSynthesizer.Synthesize(TestPlants.BuckPlant(), typeIII, Ota, new SynthesisOptions()));
+    }
+}
