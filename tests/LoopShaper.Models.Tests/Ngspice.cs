@@ -1,7 +1,6 @@
-using System.ComponentModel;
-using System.Diagnostics;
 using System.Globalization;
 using System.Numerics;
+using LoopShaper.Tests.Shared;
 
 namespace LoopShaper.Models.Tests;
 
@@ -20,39 +19,8 @@ internal static class Ngspice
             lines.AddRange([".control", "set wr_singlescale", "set wr_vecnames", "option numdgt=15", "ac dec 40 10 10meg", $"wrdata {output} v({node})", "quit", ".endc", ".end"]);
             File.WriteAllText(netlist, string.Join('\n', lines) + "\n");
 
-            var start = new ProcessStartInfo("ngspice")
-            {
-                WorkingDirectory = dir.FullName,
-                RedirectStandardOutput = true,
-                RedirectStandardError = true,
-                UseShellExecute = false,
-            };
-            start.ArgumentList.Add("-b");
-            start.ArgumentList.Add(netlist);
-            Process process;
-            try
-            {
-                process = Process.Start(start) ?? throw new InvalidOperationException("Process.Start returned null");
-            }
-            catch (Win32Exception ex)
-            {
-                Assert.Fail($"ngspice is not on PATH ({ex.Message}). These tests need the Debian package 'ngspice' (apt-get install ngspice); the project's test command installs it.");
-                throw;
-            }
-
-            using (process)
-            {
-                var stdout = process.StandardOutput.ReadToEndAsync();
-                var stderr = process.StandardError.ReadToEndAsync();
-                if (!process.WaitForExit(TimeSpan.FromSeconds(120)))
-                {
-                    process.Kill(entireProcessTree: true);
-                    Assert.Fail("ngspice did not finish within 120 s.");
-                }
-
-                Assert.True(process.ExitCode == 0, $"ngspice exited with {process.ExitCode}:\n{stdout.Result}\n{stderr.Result}");
-                Assert.True(File.Exists(output), $"ngspice wrote no output file:\n{stdout.Result}\n{stderr.Result}");
-            }
+            var (stdout, stderr) = NgspiceProcess.Run(dir.FullName, ["-b", netlist]);
+            Assert.True(File.Exists(output), $"ngspice wrote no output file:\n{stdout}\n{stderr}");
 
             // wrdata with wr_singlescale and wr_vecnames: a header line, then "frequency re(v) im(v)" per point.
             var inv = CultureInfo.InvariantCulture;

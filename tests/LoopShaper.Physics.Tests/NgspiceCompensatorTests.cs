@@ -1,8 +1,7 @@
-using System.ComponentModel;
-using System.Diagnostics;
 using System.Globalization;
 using System.Numerics;
 using LoopShaper.Core.Compensators;
+using LoopShaper.Tests.Shared;
 
 namespace LoopShaper.Physics.Tests;
 
@@ -134,39 +133,8 @@ public class NgspiceCompensatorTests
             string netlist = Path.Combine(dir.FullName, "network.cir");
             File.WriteAllText(netlist, Netlist(network, output));
 
-            var start = new ProcessStartInfo("ngspice")
-            {
-                WorkingDirectory = dir.FullName,
-                RedirectStandardOutput = true,
-                RedirectStandardError = true,
-                UseShellExecute = false,
-            };
-            start.ArgumentList.Add("-b");
-            start.ArgumentList.Add(netlist);
-            Process process;
-            try
-            {
-                process = Process.Start(start) ?? throw new InvalidOperationException("Process.Start returned null");
-            }
-            catch (Win32Exception ex)
-            {
-                Assert.Fail($"ngspice is not on PATH ({ex.Message}). This test needs the Debian package 'ngspice' (apt-get install ngspice); the project's test command installs it.");
-                throw;
-            }
-
-            using (process)
-            {
-                var stdout = process.StandardOutput.ReadToEndAsync();
-                var stderr = process.StandardError.ReadToEndAsync();
-                if (!process.WaitForExit(TimeSpan.FromSeconds(120)))
-                {
-                    process.Kill(entireProcessTree: true);
-                    Assert.Fail("ngspice did not finish within 120 s.");
-                }
-
-                Assert.True(process.ExitCode == 0, $"ngspice exited with {process.ExitCode}:\n{stdout.Result}\n{stderr.Result}");
-                Assert.True(File.Exists(output), $"ngspice wrote no output file:\n{stdout.Result}\n{stderr.Result}");
-            }
+            var (stdout, stderr) = NgspiceProcess.Run(dir.FullName, ["-b", netlist]);
+            Assert.True(File.Exists(output), $"ngspice wrote no output file:\n{stdout}\n{stderr}");
 
             return Parse(File.ReadAllLines(output));
         }

@@ -1,7 +1,6 @@
-using System.ComponentModel;
-using System.Diagnostics;
 using System.Globalization;
 using System.Numerics;
+using LoopShaper.Tests.Shared;
 
 namespace LoopShaper.Synthesis.Tests;
 
@@ -19,43 +18,9 @@ internal static class Ngspice
             string raw = Path.Combine(dir.FullName, "out.raw");
             string file = Path.Combine(dir.FullName, "netlist.cir");
             File.WriteAllText(file, netlist);
-            var start = new ProcessStartInfo("ngspice")
-            {
-                WorkingDirectory = dir.FullName,
-                RedirectStandardOutput = true,
-                RedirectStandardError = true,
-                UseShellExecute = false,
-            };
-            start.Environment["SPICE_ASCIIRAWFILE"] = "1";
-            start.ArgumentList.Add("-b");
-            start.ArgumentList.Add("-r");
-            start.ArgumentList.Add(raw);
-            start.ArgumentList.Add(file);
-            Process process;
-            try
-            {
-                process = Process.Start(start) ?? throw new InvalidOperationException("Process.Start returned null");
-            }
-            catch (Win32Exception ex)
-            {
-                Assert.Fail($"ngspice is not on PATH ({ex.Message}). This test needs the Debian package 'ngspice' (apt-get install ngspice); the project's test command installs it.");
-                throw;
-            }
-
-            using (process)
-            {
-                var stdout = process.StandardOutput.ReadToEndAsync();
-                var stderr = process.StandardError.ReadToEndAsync();
-                if (!process.WaitForExit(TimeSpan.FromSeconds(120)))
-                {
-                    process.Kill(entireProcessTree: true);
-                    Assert.Fail("ngspice did not finish within 120 s.");
-                }
-
-                Assert.True(process.ExitCode == 0, $"ngspice exited with {process.ExitCode}:\n{stdout.Result}\n{stderr.Result}");
-                Assert.True(File.Exists(raw), $"ngspice wrote no raw file:\n{stdout.Result}\n{stderr.Result}");
-                Assert.DoesNotContain("error", stdout.Result + stderr.Result, StringComparison.OrdinalIgnoreCase);
-            }
+            var (stdout, stderr) = NgspiceProcess.Run(dir.FullName, ["-b", "-r", raw, file], new Dictionary<string, string> { ["SPICE_ASCIIRAWFILE"] = "1" });
+            Assert.True(File.Exists(raw), $"ngspice wrote no raw file:\n{stdout}\n{stderr}");
+            Assert.DoesNotContain("error", stdout + stderr, StringComparison.OrdinalIgnoreCase);
 
             return ParseRaw(File.ReadAllLines(raw), vector);
         }
