@@ -1,0 +1,139 @@
+using System.Numerics;
+using System.Text.Json;
+using LoopShaper.Core.Design;
+using LoopShaper.Web.Components.Controls;
+using LoopShaper.Web.Model.Charts;
+
+namespace LoopShaper.Web.Tests;
+
+/// <summary>The closed-loop performance panel: what it sends to Plotly, and the corner selector.</summary>
+public sealed class ClosedLoopPanelTests : BunitContext
+{
+    public ClosedLoopPanelTests()
+    {
+        JSInterop.Mode = JSRuntimeMode.Strict;
+    }
+
+    [Fact]
+    public void Closed_loop_output_impedance_is_the_open_one_divided_by_one_plus_t()
+    {
+        var module = PlotlyModule.Setup(JSInterop);
+        var analysis = TestDesigns.DemoAnalysis;
+        var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
+
+        var call = module.Invocations["newPlot"].Single();
+        Assert.Equal("closed-loop-chart", call.Arguments[0]);
+        using var data = Json(call.Arguments[1]);
+        var open = Trace(data, ClosedLoopFigure.ImpedanceOpenName);
+        var closed = Trace(data, ClosedLoopFigure.ImpedanceClosedName);
+        Assert.Equal("y", closed.GetProperty("yaxis").GetString());
+        Assert.Equal("y2", Trace(data, ClosedLoopFigure.LineClosedName).GetProperty("yaxis").GetString());
+
+        // Erickson and Maksimovic, 2nd ed., sec. 9.2: Zout,cl = Zout / (1 + T). Checked point by point against the
+        // core's open-loop Zout and T evaluated directly (not through the closed-loop function the panel used);
+        // 0.01 dB covers the display rounding (0.001 dB) and the Pade approximation of a loop delay.
+        var loop = analysis.Loop!;
+        double[] fx = Doubles(closed, "x"), zcl = Doubles(closed, "y");
+        Assert.InRange(fx.Length, 100, ClosedLoopFigure.MaxPoints + 2);
+        for (int i = 0; i < fx.Length; i += 7)
+        {
+            Complex t = loop.LoopGain.EvaluateHz(fx[i]);
+            double expected = loop.OutputImpedance!.MagnitudeDb(fx[i]) - (20 * Math.Log10(Complex.Abs(1 + t)));
+            Assert.Equal(expected, zcl[i], 1e-2);
+        }
+
+        // The open-loop trace is the power stage's Zout, unchanged by the loop.
+        double[] ox = Doubles(open, "x"), zo = Doubles(open, "y");
+        for (int i = 0; i < ox.Length; i += 11)
+        {
+            Assert.Equal(loop.OutputImpedance!.MagnitudeDb(ox[i]), zo[i], 1e-2);
+        }
+
+        // Below crossover |T| >> 1: the loop lowers the impedance (the closed curve lies below the open one there).
+        Assert.True(zcl[0] < zo[0] - 20, $"closed {zcl[0]} dBOhm vs open {zo[0]} dBOhm at {fx[0]} Hz");
+
+        using var layout = Json(call.Arguments[2]);
+        var strings = Strings(layout.RootElement).ToList();
+        Assert.Contains("output impedance (dBΩ)", strings);
+        Assert.Contains("line to output (dB)", strings);
+        Assert.Equal(2, strings.Count(s => s == "frequency (Hz)"));
+        Assert.Equal(2, strings.Count(s => s == "log"));
+    }
+
+    [Fact]
+    public void Closed_loop_audio_susceptibility_is_the_open_one_divided_by_one_plus_t()
+    {
+        var module = PlotlyModule.Setup(JSInterop);
+        var analysis = TestDesigns.DemoAnalysis;
+        var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
+
+        using var data = Json(module.Invocations["newPlot"].Single().Arguments[1]);
+        var closed = Trace(data, ClosedLoopFigure.LineClosedName);
+        double[] fx = Doubles(closed, "x"), g = Doubles(closed, "y");
+        var loop = analysis.Loop!;
+
+        // Erickson and Maksimovic, 2nd ed., sec. 9.2: Gvg,cl = Gvg / (1 + T).
+        for (int i = 0; i < fx.Length; i += 7)
+        {
+            Complex t = loop.LoopGain.EvaluateHz(fx[i]);
+            Assert.Equal(loop.LineToOutput!.MagnitudeDb(fx[i]) - (20 * Math.Log10(Complex.Abs(1 + t))), g[i], 1e-2);
+        }
+    }
+
+    [Fact]
+    public void Choosing_a_corner_redraws_with_that_corners_loop()
+    {
+        var module = PlotlyModule.Setup(JSInterop);
+        var analysis = TestDesigns.DemoAnalysis;
+        var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
+        var corner = analysis.Corners.First(c => c.Model is not null && c.Input == InputCorner.Max && c.Load == LoadCorner.Min);
+
+        cut.Find("[data-closed-loop-corner]").Change(ClosedLoopPanel.Key(corner));
+
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["react"]));
+        Assert.Equal(ClosedLoopPanel.Key(corner), cut.Instance.Choice);
+        using var data = Json(module.Invocations["react"].Single().Arguments[1]);
+        var closed = Trace(data, ClosedLoopFigure.LineClosedName);
+        double[] fx = Doubles(closed, "x"), g = Doubles(closed, "y");
+
+        // The corner's loop, built by the core at the corner's input voltage and load, the compensator unchanged.
+        var atCorner = DesignAnalyzer.BuildLoop(analysis.Design, corner.Condition).Loop;
+        var main = analysis.Loop!;
+        int k = fx.Length / 3;
+        double expected = atCorner.LineToOutput!.MagnitudeDb(fx[k]) - (20 * Math.Log10(Complex.Abs(1 + atCorner.LoopGain.EvaluateHz(fx[k]))));
+        double mainValue = main.LineToOutput!.MagnitudeDb(fx[k]) - (20 * Math.Log10(Complex.Abs(1 + main.LoopGain.EvaluateHz(fx[k]))));
+        Assert.Equal(expected, g[k], 1e-2);
+        Assert.True(Math.Abs(expected - mainValue) > 0.1, $"the corner ({expected} dB) should differ from the main point ({mainValue} dB)");
+    }
+
+    [Fact]
+    public void A_custom_plant_without_zout_says_so_and_sends_no_numbers_it_does_not_have()
+    {
+        var analysis = TestDesigns.DemoAnalysis;
+        var curves = new ClosedLoopCurves(null, null, null, null);
+        var figure = ClosedLoopFigure.Build(curves, analysis.Design.Analysis.StartHz, analysis.Design.Analysis.StopHz);
+        Assert.Empty(figure.Data);
+        string text = JsonSerializer.Serialize(figure.Layout);
+        Assert.Contains("no output impedance for this plant", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("NaN", text, StringComparison.Ordinal);
+    }
+
+    private static IEnumerable<string> Strings(JsonElement e) => e.ValueKind switch
+    {
+        JsonValueKind.String => [e.GetString()!],
+        JsonValueKind.Object => e.EnumerateObject().SelectMany(p => Strings(p.Value)),
+        JsonValueKind.Array => e.EnumerateArray().SelectMany(Strings),
+        _ => [],
+    };
+
+    private static JsonElement Trace(JsonDocument data, string name)
+        => data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == name);
+
+    private static double[] Doubles(JsonElement trace, string axis)
+        => [.. trace.GetProperty(axis).EnumerateArray().Select(v => v.GetDouble())];
+
+    private static JsonDocument Json(object? argument) => JsonDocument.Parse(JsonSerializer.Serialize(argument));
+}
