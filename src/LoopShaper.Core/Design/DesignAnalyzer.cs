@@ -42,7 +42,7 @@ public static class DesignAnalyzer
     /// <summary>The operating condition an analysis setting picks from the power stage.</summary>
     public static OperatingCondition ConditionOf(BuckPowerStage stage, AnalysisSettings settings) => new(
         settings.Input switch { InputCorner.Min => stage.InputVoltage.MinV, InputCorner.Max => stage.InputVoltage.MaxV, _ => stage.InputVoltage.NominalV },
-        settings.Load == LoadCorner.Min ? stage.LoadCurrent.MinA : stage.LoadCurrent.MaxA);
+        settings.Load switch { LoadCorner.Min => stage.LoadCurrent.MinA, LoadCorner.Nominal => stage.LoadCurrent.EffectiveNominalA, _ => stage.LoadCurrent.MaxA });
 
     /// <summary>
     /// Builds the loop of a design at an operating condition (power-stage plants). The plant model follows the plant's

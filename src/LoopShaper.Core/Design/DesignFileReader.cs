@@ -134,7 +134,7 @@ internal static class DesignFileReader
         vin.Finish("the input voltage");
         double vout = s.Number("outputVoltageV", "V");
         var load = s.Object("loadCurrentA");
-        var loadCurrent = new CurrentRange(load.Number("min", "A"), load.Number("max", "A"));
+        var loadCurrent = new CurrentRange(load.Number("min", "A"), load.Number("max", "A"), load.NullableNumber("nominal", "A"));
         load.Finish("the load current");
         double fs = s.Number("switchingFrequencyHz", "Hz");
         var l = s.Object("inductor");

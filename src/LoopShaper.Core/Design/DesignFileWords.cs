@@ -10,7 +10,7 @@ internal static class DesignFileWords
         [("min", InputCorner.Min), ("nominal", InputCorner.Nominal), ("max", InputCorner.Max)];
 
     public static readonly IReadOnlyList<(string Word, LoadCorner Value)> LoadCorners =
-        [("min", LoadCorner.Min), ("max", LoadCorner.Max)];
+        [("min", LoadCorner.Min), ("nominal", LoadCorner.Nominal), ("max", LoadCorner.Max)];
 
     public static readonly IReadOnlyList<(string Word, RectifierKind Value)> RectifierKinds =
         [("synchronous", RectifierKind.Synchronous), ("diode", RectifierKind.Diode)];

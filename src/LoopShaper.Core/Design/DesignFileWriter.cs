@@ -95,6 +95,11 @@ internal sealed class DesignFileWriter
         Object("loadCurrentA", () =>
         {
             Number("min", s.LoadCurrent.MinA);
+            if (s.LoadCurrent.NominalA is double nominal)
+            {
+                Number("nominal", nominal);
+            }
+
             Number("max", s.LoadCurrent.MaxA);
         });
         Number("switchingFrequencyHz", s.SwitchingFrequencyHz);

@@ -8,4 +8,7 @@ public enum LoadCorner
 
     /// <summary>Full load.</summary>
     Max,
+
+    /// <summary>Nominal load (plant.powerStage.loadCurrentA.nominal, or the mean of the lightest and full load).</summary>
+    Nominal,
 }

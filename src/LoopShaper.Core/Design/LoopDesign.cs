@@ -1,4 +1,5 @@
 using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Corners;
 using LoopShaper.Core.PlantModels;
 
 namespace LoopShaper.Core.Design;
@@ -11,4 +12,5 @@ namespace LoopShaper.Core.Design;
 /// <param name="Analysis">Analysis settings.</param>
 /// <param name="Criteria">Design criteria.</param>
 /// <param name="Synthesis">How the compensator's parts are chosen and their tolerances; null when the design file has no "synthesis" section.</param>
-public sealed record LoopDesign(string Name, string Description, Plant Plant, Compensator Compensator, AnalysisSettings Analysis, DesignCriteria Criteria, SynthesisSettings? Synthesis = null);
+/// <param name="Tolerances">Tolerances of the power stage, modulator and amplifier for corners and Monte Carlo; null when the design file has no "tolerances" section (the defaults apply).</param>
+public sealed record LoopDesign(string Name, string Description, Plant Plant, Compensator Compensator, AnalysisSettings Analysis, DesignCriteria Criteria, SynthesisSettings? Synthesis = null, ToleranceSpec? Tolerances = null);

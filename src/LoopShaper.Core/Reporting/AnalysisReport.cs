@@ -162,7 +162,7 @@ public sealed record AnalysisReport
 
     private static CornerReport CornerOf(CornerResult c) => new(
         c.Input switch { InputCorner.Min => "min", InputCorner.Max => "max", _ => "nominal" },
-        c.Load == LoadCorner.Min ? "min" : "max",
+        c.Load switch { LoadCorner.Min => "min", LoadCorner.Nominal => "nominal", _ => "max" },
         Finite(c.Condition.InputVoltageV),
         Finite(c.Condition.LoadCurrentA),
         c.Mode == ConductionMode.Continuous ? "continuous" : "discontinuous",

@@ -61,6 +61,12 @@ public static class DesignValidator
             loadOk = false;
         }
 
+        if (loadOk && s.LoadCurrent.NominalA is double nominal && !(nominal >= s.LoadCurrent.MinA && nominal <= s.LoadCurrent.MaxA))
+        {
+            c.Error($"{p}.loadCurrentA.nominal", $"must lie between min and max ({Format(s.LoadCurrent.MinA, "A")} to {Format(s.LoadCurrent.MaxA, "A")}); got {Format(nominal, "A")}.");
+            loadOk = false;
+        }
+
         bool fsOk = c.InRange($"{p}.switchingFrequencyHz", s.SwitchingFrequencyHz, 1e3, 100e6, "Hz");
         if (fsOk && s.SwitchingFrequencyHz < 20e3)
         {
