@@ -20,10 +20,7 @@ public sealed class ClosedLoopPanelTests : BunitContext
         var module = PlotlyModule.Setup(JSInterop);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
-        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
-
-        var call = module.Invocations["newPlot"].Single();
-        Assert.Equal("closed-loop-chart", call.Arguments[0]);
+        var call = Drawn(cut, module, "closed-loop-chart");
         using var data = Json(call.Arguments[1]);
         var open = Trace(data, ClosedLoopFigure.ImpedanceOpenName);
         var closed = Trace(data, ClosedLoopFigure.ImpedanceClosedName);
@@ -67,9 +64,7 @@ public sealed class ClosedLoopPanelTests : BunitContext
         var module = PlotlyModule.Setup(JSInterop);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
-        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
-
-        using var data = Json(module.Invocations["newPlot"].Single().Arguments[1]);
+        using var data = Json(Drawn(cut, module, "closed-loop-chart").Arguments[1]);
         var closed = Trace(data, ClosedLoopFigure.LineClosedName);
         double[] fx = Doubles(closed, "x"), g = Doubles(closed, "y");
         var loop = analysis.Loop!;
@@ -88,19 +83,22 @@ public sealed class ClosedLoopPanelTests : BunitContext
         var module = PlotlyModule.Setup(JSInterop);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
-        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
-        var corner = analysis.Corners.First(c => c.Model is not null && c.Input == InputCorner.Max && c.Load == LoadCorner.Min);
+        Drawn(cut, module, "closed-loop-chart");
+        int before = Sent(module, "closed-loop-chart").Count;
+        var corner = ClosedLoopPoint.Corners.First(c => c.Input == InputCorner.Max && c.Load == LoadCorner.Min && c.Tolerances == LoopShaper.Core.Corners.ToleranceSet.Nominal);
 
-        cut.Find("[data-closed-loop-corner]").Change(ClosedLoopPanel.Key(corner));
+        cut.Find("[data-closed-loop-corner]").Change(ClosedLoopPoint.Key(corner));
 
-        cut.WaitForAssertion(() => Assert.Single(module.Invocations["react"]));
-        Assert.Equal(ClosedLoopPanel.Key(corner), cut.Instance.Choice);
-        using var data = Json(module.Invocations["react"].Single().Arguments[1]);
+        Eventually.True(() => Sent(module, "closed-loop-chart").Count > before, "a redraw for the corner");
+        Assert.Equal(ClosedLoopPoint.Key(corner), cut.Instance.Choice);
+        using var data = Json(Sent(module, "closed-loop-chart")[^1].Arguments[1]);
         var closed = Trace(data, ClosedLoopFigure.LineClosedName);
         double[] fx = Doubles(closed, "x"), g = Doubles(closed, "y");
 
-        // The corner's loop, built by the core at the corner's input voltage and load, the compensator unchanged.
-        var atCorner = DesignAnalyzer.BuildLoop(analysis.Design, corner.Condition).Loop;
+        // The corner's loop, built by the core at the corner's input voltage and load (nominal parts: every factor 1
+        // for the demo, which has no DC-bias derating), the compensator unchanged.
+        var fixedDesign = LoopShaper.Core.Corners.CornerSweep.Fixed(analysis.Design);
+        var atCorner = DesignAnalyzer.BuildLoop(fixedDesign, LoopShaper.Core.Corners.CornerSweep.ConditionOf(fixedDesign, corner)).Loop;
         var main = analysis.Loop!;
         int k = fx.Length / 3;
         double expected = atCorner.LineToOutput!.MagnitudeDb(fx[k]) - (20 * Math.Log10(Complex.Abs(1 + atCorner.LoopGain.EvaluateHz(fx[k]))));
@@ -110,16 +108,65 @@ public sealed class ClosedLoopPanelTests : BunitContext
     }
 
     [Fact]
+    public void The_transients_carry_the_cores_peak_and_recovery()
+    {
+        var module = PlotlyModule.Setup(JSInterop);
+        var analysis = TestDesigns.DemoAnalysis;
+        var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
+        var call = Drawn(cut, module, "transient-chart");
+        var p = cut.Instance.Performance!;
+        var load = p.LoadStep!;
+
+        using var data = Json(call.Arguments[1]);
+        var trace = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString()!.StartsWith(TransientFigure.LoadName, StringComparison.Ordinal));
+        double[] y = Doubles(trace, "y");
+        double quantum = 1e-5 * load.Response.Value.Max(Math.Abs);
+        Assert.InRange(y.Length, 100, TransientFigure.MaxPoints + 2);
+        Assert.Equal(load.Response.Value.Min(), y.Min(), quantum); // the undershoot survives thinning
+
+        // A load step up draws current from the output: the deviation is negative (vout = -Zout,cl iload,
+        // Erickson and Maksimovic sec. 9.2), and the core's recovery time is annotated.
+        Assert.True(load.PeakDeviationV < 0, $"{load.PeakDeviationV} V");
+        using var layout = Json(call.Arguments[2]);
+        var strings = Strings(layout.RootElement).ToList();
+        Assert.Contains(strings, s => s == "peak " + "\u2212" + LoopShaper.Core.Units.EngineeringFormat.Format(-load.PeakDeviationV, "V"));
+        if (load.RecoveryTimeS is double rt)
+        {
+            Assert.Contains(strings, s => s.StartsWith("recovered " + LoopShaper.Core.Units.EngineeringFormat.Format(rt, "s"), StringComparison.Ordinal));
+        }
+
+        Assert.Equal(3, strings.Count(s => s == "time (s)"));
+        Assert.NotNull(p.LineStep);
+        Assert.Contains(data.RootElement.EnumerateArray(), t => t.GetProperty("name").GetString()!.StartsWith(TransientFigure.LineName, StringComparison.Ordinal));
+        Assert.Contains(data.RootElement.EnumerateArray(), t => t.GetProperty("name").GetString()!.StartsWith(TransientFigure.ReferenceName, StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void A_custom_plant_without_zout_says_so_and_sends_no_numbers_it_does_not_have()
     {
         var analysis = TestDesigns.DemoAnalysis;
-        var curves = new ClosedLoopCurves(null, null, null, null);
-        var figure = ClosedLoopFigure.Build(curves, analysis.Design.Analysis.StartHz, analysis.Design.Analysis.StopHz);
+        var figure = ClosedLoopFigure.Build(null, analysis.Design.Analysis.StartHz, analysis.Design.Analysis.StopHz);
         Assert.Empty(figure.Data);
         string text = JsonSerializer.Serialize(figure.Layout);
         Assert.Contains("no output impedance for this plant", text, StringComparison.Ordinal);
         Assert.DoesNotContain("NaN", text, StringComparison.Ordinal);
     }
+
+    /// <summary>The latest draw (newPlot or react) of a chart once it carries traces.</summary>
+    private static JSRuntimeInvocation Drawn(IRenderedComponent<ClosedLoopPanel> cut, BunitJSModuleInterop module, string id)
+    {
+        Eventually.True(() => Sent(module, id) is { Count: > 0 } sent && HasTraces(sent[^1]), id + " drawn with traces");
+        return Sent(module, id)[^1];
+    }
+
+    private static bool HasTraces(JSRuntimeInvocation call)
+    {
+        using var d = Json(call.Arguments[1]);
+        return d.RootElement.GetArrayLength() > 0;
+    }
+
+    private static List<JSRuntimeInvocation> Sent(BunitJSModuleInterop module, string id)
+        => [.. module.Invocations.Where(i => (i.Identifier == "newPlot" || i.Identifier == "react") && Equals(i.Arguments[0], id))];
 
     private static IEnumerable<string> Strings(JsonElement e) => e.ValueKind switch
     {

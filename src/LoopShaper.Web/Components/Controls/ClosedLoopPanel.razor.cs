@@ -1,4 +1,5 @@
 using LoopShaper.Core.Design;
+using LoopShaper.Core.Loop;
 using LoopShaper.Core.Units;
 using LoopShaper.Web.Model.Charts;
 using Microsoft.AspNetCore.Components;
@@ -7,97 +8,168 @@ using Plotly.Blazor;
 namespace LoopShaper.Web.Components.Controls;
 
 /// <summary>
-/// Closed-loop performance in the frequency domain: output impedance and audio susceptibility, open against closed
-/// loop, at the main operating point or at any corner the core analysed. Redrawn with Plotly.react on every change.
+/// Closed-loop performance at the main operating point or at any corner: output impedance and audio susceptibility,
+/// open against closed loop, and the load-step, reference-step and line-step transients, from the core's
+/// <see cref="ClosedLoopAnalyzer"/>. Computed off the circuit's thread; redrawn with Plotly.react.
 /// </summary>
-public sealed partial class ClosedLoopPanel
+public sealed partial class ClosedLoopPanel : IDisposable
 {
-    /// <summary>Value of the selector's main-analysis entry.</summary>
-    public const string MainChoice = "main";
-
-    private PlotlyChart? _chart;
-    private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
-    private ChartFigure? _firstFigure;
+    private PlotlyChart? _frequencyChart;
+    private PlotlyChart? _transientChart;
+    private ChartFigure _frequency = ClosedLoopFigure.Build(null, 0, 0);
+    private ChartFigure _transient = TransientFigure.Build(null);
+    private ChartFigure? _frequencyHas;
+    private ChartFigure? _transientHas;
     private DesignAnalysis? _builtFrom;
     private string? _builtChoice;
-    private bool _drawn;
-    private bool _needsRedraw;
+    private CancellationTokenSource? _cts;
+    private bool _computing;
+    private string? _error;
+    private bool _frequencyDrawn;
+    private bool _transientDrawn;
 
-    /// <summary>The analysis to show.</summary>
+    /// <summary>The analysis whose design is shown (a valid one).</summary>
     [Parameter, EditorRequired]
     public DesignAnalysis Analysis { get; set; } = default!;
 
-    /// <summary>The selected operating point: <see cref="MainChoice"/> or a corner's key.</summary>
-    public string Choice { get; private set; } = MainChoice;
+    /// <summary>The selected operating point: <see cref="ClosedLoopPoint.Main"/> or a corner's key.</summary>
+    public string Choice { get; private set; } = ClosedLoopPoint.Main;
 
-    /// <summary>The curves drawn, or null when the selected point has none.</summary>
-    public ClosedLoopCurves? Curves { get; private set; }
+    /// <summary>The performance drawn, or null before the first one.</summary>
+    public ClosedLoopPerformance? Performance { get; private set; }
 
-    /// <summary>The figure last sent to the chart.</summary>
-    public ChartFigure Figure => _figure;
+    /// <summary>The frequency-domain figure last sent.</summary>
+    public ChartFigure FrequencyFigure => _frequency;
 
-    /// <summary>Selector key of a corner.</summary>
-    public static string Key(CornerResult corner) => corner.Input + "-" + corner.Load;
+    /// <summary>The transient figure last sent.</summary>
+    public ChartFigure TransientFigureSent => _transient;
 
-    private string MainLabel => Analysis.Design.Plant is LoopShaper.Core.PlantModels.BuckPlant buck
-        ? Describe(DesignAnalyzer.ConditionOf(buck.PowerStage, Analysis.Design.Analysis))
+    /// <summary>Completes when the latest computation has been applied.</summary>
+    public Task Computed { get; private set; } = Task.CompletedTask;
+
+    [Inject]
+    private ILogger<ClosedLoopPanel> Logger { get; set; } = default!;
+
+    private string MainLabel => ClosedLoopPoint.MainCondition(Analysis.Design) is { } at
+        ? EngineeringFormat.Format(at.InputVoltageV, "V") + ", " + EngineeringFormat.Format(at.LoadCurrentA, "A")
         : "custom plant";
 
     /// <inheritdoc />
-    protected override void OnParametersSet()
+    public void Dispose()
     {
-        if (Choice != MainChoice && !Analysis.Corners.Any(c => Key(c) == Choice && c.Model is not null))
-        {
-            Choice = MainChoice;
-        }
+        _cts?.Cancel();
+        _cts?.Dispose();
+    }
 
+    /// <inheritdoc />
+    protected override async Task OnParametersSetAsync()
+    {
         if (!ReferenceEquals(Analysis, _builtFrom) || Choice != _builtChoice)
         {
-            var corner = Analysis.Corners.FirstOrDefault(c => Key(c) == Choice);
-            Curves = corner is null ? ClosedLoopCurves.Of(Analysis) : ClosedLoopCurves.At(Analysis, corner);
-            _figure = ClosedLoopFigure.Build(Curves, Analysis.Design.Analysis.StartHz, Analysis.Design.Analysis.StopHz);
-            _firstFigure ??= _figure;
-            _builtFrom = Analysis;
-            _builtChoice = Choice;
-            _needsRedraw = true;
+            await Recompute();
         }
     }
 
     /// <inheritdoc />
     protected override async Task OnAfterRenderAsync(bool firstRender)
     {
-        if (_drawn && _needsRedraw && _chart is not null)
+        if (firstRender)
         {
-            _needsRedraw = false;
-            await _chart.React();
+            // The figures of the first render are the ones the charts' own newPlot draws.
+            _frequencyHas = _frequency;
+            _transientHas = _transient;
+        }
+
+        if (_frequencyDrawn && !ReferenceEquals(_frequencyHas, _frequency))
+        {
+            _frequencyHas = _frequency;
+            await Redraw(_frequencyChart);
+        }
+
+        if (_transientDrawn && !ReferenceEquals(_transientHas, _transient))
+        {
+            _transientHas = _transient;
+            await Redraw(_transientChart);
         }
     }
 
-    private static string CornerLabel(CornerResult c)
-        => $"{c.Input.ToString().ToLowerInvariant()} input, {(c.Load == LoadCorner.Min ? "lightest" : "full")} load: {Describe(c.Condition)}"
-            + (c.Model is null ? " (no model)" : string.Empty);
-
-    private static string Describe(LoopShaper.Core.PlantModels.OperatingCondition at)
-        => EngineeringFormat.Format(at.InputVoltageV, "V") + ", " + EngineeringFormat.Format(at.LoadCurrentA, "A");
-
-    private void OnCorner(ChangeEventArgs e)
+    private async Task Recompute()
     {
-        Choice = e.Value?.ToString() ?? MainChoice;
-        OnParametersSet();
+        _builtFrom = Analysis;
+        _builtChoice = Choice;
+        _cts?.Cancel();
+        _cts?.Dispose();
+        var cts = _cts = new CancellationTokenSource();
+        var design = Analysis.Design;
+        string key = Choice;
+        _computing = true;
+        var work = Task.Run(() => ClosedLoopPoint.Analyze(design, key, cts.Token), cts.Token);
+        Computed = work.ContinueWith(_ => { }, TaskScheduler.Default);
+        try
+        {
+            var p = await work.ConfigureAwait(true);
+            if (cts.IsCancellationRequested)
+            {
+                return;
+            }
+
+            Performance = p;
+            _error = null;
+            _frequency = ClosedLoopFigure.Build(p, design.Analysis.StartHz, design.Analysis.StopHz);
+            _transient = TransientFigure.Build(p);
+        }
+        catch (OperationCanceledException)
+        {
+            return;
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+        {
+            Logger.LogWarning(ex, "Closed-loop performance at {Point} failed", key);
+            Performance = null;
+            _error = "Not computed at this point: " + ex.Message;
+            _frequency = ClosedLoopFigure.Build(null, design.Analysis.StartHz, design.Analysis.StopHz);
+            _transient = TransientFigure.Build(null);
+        }
+
+        _computing = false;
     }
 
-    private async void OnFirstDraw()
+    private async Task OnCorner(ChangeEventArgs e)
     {
-        _drawn = true;
-        if (_chart is null || ReferenceEquals(_figure, _firstFigure))
+        Choice = e.Value?.ToString() ?? ClosedLoopPoint.Main;
+        await Recompute();
+    }
+
+    private async void OnFrequencyDrawn()
+    {
+        _frequencyDrawn = true;
+        if (!ReferenceEquals(_frequencyHas, _frequency))
+        {
+            _frequencyHas = _frequency;
+            await Redraw(_frequencyChart);
+        }
+    }
+
+    private async void OnTransientDrawn()
+    {
+        _transientDrawn = true;
+        if (!ReferenceEquals(_transientHas, _transient))
+        {
+            _transientHas = _transient;
+            await Redraw(_transientChart);
+        }
+    }
+
+    private static async Task Redraw(PlotlyChart? chart)
+    {
+        if (chart is null)
         {
             return;
         }
 
         try
         {
-            _needsRedraw = false;
-            await _chart.React();
+            await chart.React();
         }
         catch (Exception ex) when (ex is Microsoft.JSInterop.JSDisconnectedException or Microsoft.JSInterop.JSException or TaskCanceledException)
         {

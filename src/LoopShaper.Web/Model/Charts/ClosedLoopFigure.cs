@@ -1,4 +1,5 @@
 using LoopShaper.Core.Analysis;
+using LoopShaper.Core.Loop;
 using Plotly.Blazor;
 using Plotly.Blazor.LayoutLib;
 using Plotly.Blazor.Traces;
@@ -31,7 +32,7 @@ public static class ClosedLoopFigure
     public const int MaxPoints = 500;
 
     /// <summary>Builds the figure; <paramref name="startHz"/> and <paramref name="stopHz"/> fix the frequency axes.</summary>
-    public static ChartFigure Build(ClosedLoopCurves? curves, double startHz, double stopHz)
+    public static ChartFigure Build(ClosedLoopPerformance? curves, double startHz, double stopHz)
     {
         var data = new List<ITrace>();
         var notes = new List<Annotation>
@@ -44,15 +45,15 @@ public static class ClosedLoopFigure
             notes.Add(Centered("x domain", "y domain", "no output impedance for this plant"));
         }
 
-        if (curves?.LineToOutputOpen is null && curves?.LineToOutputClosed is null)
+        if (curves?.AudioSusceptibilityOpen is null && curves?.AudioSusceptibilityClosed is null)
         {
             notes.Add(Centered("x2 domain", "y2 domain", "no line-to-output function for this plant"));
         }
 
         Add(data, curves?.OutputImpedanceOpen, ImpedanceOpenName, "x", "y", ChartPalette.Plant, "dash", 2.4m, "dBΩ");
         Add(data, curves?.OutputImpedanceClosed, ImpedanceClosedName, "x", "y", ChartPalette.Loop, "solid", 3m, "dBΩ");
-        Add(data, curves?.LineToOutputOpen, LineOpenName, "x2", "y2", ChartPalette.Plant, "dash", 2.4m, "dB");
-        Add(data, curves?.LineToOutputClosed, LineClosedName, "x2", "y2", ChartPalette.Loop, "solid", 3m, "dB");
+        Add(data, curves?.AudioSusceptibilityOpen, LineOpenName, "x2", "y2", ChartPalette.Plant, "dash", 2.4m, "dB");
+        Add(data, curves?.AudioSusceptibilityClosed, LineClosedName, "x2", "y2", ChartPalette.Loop, "solid", 3m, "dB");
 
         bool rangeOk = double.IsFinite(startHz) && double.IsFinite(stopHz) && startHz > 0 && stopHz > startHz;
         IList<object>? range = rangeOk ? [Math.Log10(startHz), Math.Log10(stopHz)] : null;
