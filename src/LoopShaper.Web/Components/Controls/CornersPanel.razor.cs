@@ -137,6 +137,12 @@ public sealed partial class CornersPanel : IDisposable
 
     private static string? WorstAttr(CornerTable t, int i, string figure) => IsWorst(t, i, figure) ? "true" : null;
 
+    private static string FirstReason(CornerRow r)
+    {
+        string first = r.Failures.IsEmpty ? r.Note ?? "not analysed" : r.Failures[0];
+        return r.Failures.Length > 1 ? $"{first} (+{r.Failures.Length - 1})" : first;
+    }
+
     private static string Signed(double v) => (v < 0 ? "\u2212" : "+") + EngineeringFormat.Format(Math.Abs(v), "V");
 
     private async void OnFirstDraw()

@@ -86,22 +86,29 @@ public static class TransientFigure
                 });
             }
 
-            double peakY = final + t.PeakDeviationV;
-            if (double.IsFinite(t.PeakTimeS) && double.IsFinite(peakY))
+            // The reference step is judged by its overshoot (the core's StepMetrics peak); the disturbances by their
+            // largest deviation from the final value (the core's Transient peak).
+            bool isReference = k == 1;
+            double peakT = isReference ? t.Response.Metrics.PeakTimeS : t.PeakTimeS;
+            double peakY = isReference ? t.Response.Metrics.PeakDeviation : final + t.PeakDeviationV;
+            string peakText = isReference
+                ? t.Response.Metrics.OvershootPct is double os ? $"overshoot {os.ToString("F1", System.Globalization.CultureInfo.InvariantCulture)} %" : "peak " + Signed(peakY)
+                : "peak " + Signed(t.PeakDeviationV);
+            if (double.IsFinite(peakT) && double.IsFinite(peakY))
             {
-                data.Add(new Scatter { Name = "peak", Mode = ModeFlag.Markers, X = [t.PeakTimeS], Y = [peakY], XAxis = x, YAxis = y, Marker = new Marker { Size = 10, Color = ChartPalette.Margin }, HoverInfo = HoverInfoFlag.Skip });
+                data.Add(new Scatter { Name = "peak", Mode = ModeFlag.Markers, X = [peakT], Y = [peakY], XAxis = x, YAxis = y, Marker = new Marker { Size = 10, Color = ChartPalette.Margin }, HoverInfo = HoverInfoFlag.Skip });
                 notes.Add(new Annotation
                 {
                     XRef = x,
                     YRef = y,
-                    X = t.PeakTimeS,
+                    X = peakT,
                     Y = peakY,
-                    Text = "peak " + Signed(t.PeakDeviationV),
+                    Text = peakText,
                     ShowArrow = true,
                     Arrowhead = 2,
                     ArrowColor = ChartPalette.Margin,
                     Ax = 50,
-                    Ay = t.PeakDeviationV < 0 ? 28 : -28,
+                    Ay = peakY < final ? 28 : -28,
                     BgColor = "rgba(255,255,255,0.92)",
                     BorderColor = ChartPalette.Margin,
                     BorderWidth = 1.2m,
@@ -114,11 +121,11 @@ public static class TransientFigure
             {
                 var (lo, hi) = ChartNumbers.Extent(t.Response.Value, -1, 1);
                 data.Add(new Scatter { Name = "recovered", Mode = ModeFlag.Lines, X = [rt, rt], Y = [lo, hi], XAxis = x, YAxis = y, Line = new Line { Color = ChartPalette.GainMargin, Width = 1.6m, Dash = "dash" }, HoverInfo = HoverInfoFlag.Skip });
-                notes.Add(Note(x + " domain", y + " domain", 0.98m, 0.04m, $"recovered {EngineeringFormat.Format(rt, "s")} (±{EngineeringFormat.Format(t.RecoveryBand, "V")})", ChartPalette.GainMargin, right: true));
+                notes.Add(Note(x + " domain", y + " domain", 0.98m, isReference ? 0.08m : 0.92m, $"recovered {EngineeringFormat.Format(rt, "s")} (±{EngineeringFormat.Format(t.RecoveryBand, "V")})", ChartPalette.GainMargin, right: true));
             }
             else
             {
-                notes.Add(Note(x + " domain", y + " domain", 0.98m, 0.04m, "not recovered in the simulated time", ChartPalette.Margin, right: true));
+                notes.Add(Note(x + " domain", y + " domain", 0.98m, isReference ? 0.08m : 0.92m, "not recovered in the simulated time", ChartPalette.Margin, right: true));
             }
         }
 
