@@ -15,7 +15,7 @@ namespace LoopShaper.Core.Corners;
 /// </summary>
 public static class MonteCarloRunner
 {
-    private const int ChunkSize = 32;
+    private const int ChunkSize = 8;
 
     /// <summary>Runs the samples. Progress is reported about every 1 % of the samples.</summary>
     public static MonteCarloResult Run(LoopDesign design, MonteCarloSettings settings, IProgress<MonteCarloProgress>? progress = null, CancellationToken cancellation = default)
