@@ -134,25 +134,25 @@ public sealed class DirectLoopEvaluator
             case 0:
                 return k >= 0 ? _fixedCompensator[k] : _placement!.Evaluate(s.Imaginary);
             case 1:
-            {
-                Complex zf = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
-                Complex zin = st.Type == CompensatorType.TypeIII ? Parallel(st.R1, st.R3 + (1.0 / (s * st.C3))) : st.R1;
-                Complex ideal = zf / zin;
-                if (st.A0 <= 0)
                 {
-                    return ideal;
+                    Complex zf = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
+                    Complex zin = st.Type == CompensatorType.TypeIII ? Parallel(st.R1, st.R3 + (1.0 / (s * st.C3))) : st.R1;
+                    Complex ideal = zf / zin;
+                    if (st.A0 <= 0)
+                    {
+                        return ideal;
+                    }
+
+                    Complex invA = (1.0 + (s / st.Wa)) * (st.W2 > 0 ? 1.0 + (s / st.W2) : Complex.One) / st.A0;
+                    Complex load = st.Rb > 0 ? (1.0 / zin) + (1.0 / st.Rb) : 1.0 / zin;
+                    return ideal / (1.0 + ((1.0 + (zf * load)) * invA));
                 }
 
-                Complex invA = (1.0 + (s / st.Wa)) * (st.W2 > 0 ? 1.0 + (s / st.W2) : Complex.One) / st.A0;
-                Complex load = st.Rb > 0 ? (1.0 / zin) + (1.0 / st.Rb) : 1.0 / zin;
-                return ideal / (1.0 + ((1.0 + (zf * load)) * invA));
-            }
-
             default:
-            {
-                Complex zn = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
-                return st.Gm * st.Ro * zn / (st.Ro + zn);
-            }
+                {
+                    Complex zn = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
+                    return st.Gm * st.Ro * zn / (st.Ro + zn);
+                }
         }
     }
 

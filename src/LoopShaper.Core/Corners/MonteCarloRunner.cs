@@ -94,7 +94,8 @@ public static class MonteCarloRunner
             .Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))
             .ToImmutableArray();
         progress?.Report(new MonteCarloProgress(completed, n));
-        return new MonteCarloResult(settings, parameters, at, completed, cancelled, passed, [.. dists], worst, indices.Count(i => fast[i]), clock.Elapsed.TotalSeconds);
+        return new MonteCarloResult(settings, parameters, at, completed, cancelled, passed, [.. dists], worst, indices.Count(i => fast[i]), clock.Elapsed.TotalSeconds,
+            settings.KeepAllSamples ? [.. indices.Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))] : []);
     }
 
     /// <summary>The factors of sample <paramref name="index"/>: uniform in [low, high], or normal about the centre with sigma = (high - low) / 6.</summary>
