@@ -1,4 +1,6 @@
 using System.CommandLine;
+using LoopShaper.Core.Corners;
+using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Reporting;
 
 namespace LoopShaper.Cli;
@@ -12,7 +14,7 @@ internal static class AnalyzeCommand
         var format = new Option<string>("--format", "-f") { Description = "Report format: text or json.", DefaultValueFactory = _ => "text" };
         format.AcceptOnlyFromAmong("text", "json");
         var outFile = new Option<string?>("--out", "-o") { Description = "Write the report to this file instead of the standard output." };
-        var command = new Command("analyze", "Analyse a design: operating point, crossovers and margins, closed-loop stability, step responses, criteria and warnings. Exit code 0 when the design meets its criteria, 1 when not, 2 for invalid input.")
+        var command = new Command("analyze", "Analyse a design: operating point, crossovers and margins, closed-loop stability, step responses, criteria and warnings. The corner table (3 input x 3 load x 4 tolerance sets) is included. Exit code 0 when the design meets its criteria at every corner, 1 when not, 2 for invalid input.")
         {
             file, format, outFile,
         };
@@ -25,13 +27,15 @@ internal static class AnalyzeCommand
             }
 
             var report = AnalysisReport.From(analysis);
+            CornerTable? corners = analysis.IsValid && analysis.Design.Plant is BuckPlant ? CornerSweep.Run(analysis.Design, new CornerSweepOptions(IncludeResponses: false)) : null;
+            report = report with { CornerTable = corners is null ? null : CornerTableReport.From(corners) };
             string text = parse.GetValue(format) == "json" ? AnalysisReportJson.Write(report) : AnalysisReportText.Write(report);
             if (!DesignLoader.Emit(text, parse.GetValue(outFile), output, error))
             {
                 return ExitCodes.InvalidInput;
             }
 
-            return report.MeetsCriteria ? ExitCodes.Success : ExitCodes.CriteriaNotMet;
+            return report.MeetsCriteria && corners?.AllPass != false ? ExitCodes.Success : ExitCodes.CriteriaNotMet;
         });
         return command;
     }

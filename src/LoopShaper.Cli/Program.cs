@@ -20,6 +20,7 @@ public static class Program
             SuggestCommand.Create(output, error),
             SynthesizeCommand.Create(output, error),
             ExportCommand.Create(output, error),
+            MonteCarloCommand.Create(output, error),
         };
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)

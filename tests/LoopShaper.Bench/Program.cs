@@ -2,17 +2,35 @@ using System.Diagnostics;
 using System.Globalization;
 using System.Text.Json.Nodes;
 using LoopShaper.Core.Analysis;
+using LoopShaper.Core.Corners;
 using LoopShaper.Core.Design;
 
 // Benchmarks of the core on the example designs (a plain harness that prints figures; speed targets live here,
-// not in timed tests). Usage: loopshaper-bench [--examples DIR] [--export FILE.json]
+// not in timed tests). Usage: loopshaper-bench [--examples DIR] [--export FILE.json] [--corners-only]
 string dir = ArgValue(args, "--examples") ?? FindExamples();
 string? export = ArgValue(args, "--export");
 var inv = CultureInfo.InvariantCulture;
 var rows = new JsonArray();
 Console.WriteLine($"LoopShaper core benchmark, {Environment.ProcessorCount} cores, .NET {Environment.Version}");
 Console.WriteLine($"{"design",-40} {"resp+margins us",16} {"loop analysis us",17} {"whole design us",16}");
-foreach (var file in Directory.GetFiles(dir, "*.json").Order(StringComparer.Ordinal))
+bool cornersOnly = args.Contains("--corners-only");
+if (args.Contains("--profile"))
+{
+    var dz = DesignFile.Read(File.ReadAllText(Path.Combine(dir, "core-rail-12v-to-1v0.json"))).Design!;
+    var ps = ToleranceModel.Parameters(dz);
+    var atz = MonteCarloRunner.ConditionOf(dz, new MonteCarloSettings());
+    var evz = new DirectLoopEvaluator(dz, ps, atz);
+    var fz = ToleranceModel.Factors(ps, ToleranceSet.AllHigh);
+    Console.WriteLine($"apply us {Time(() => ToleranceModel.Apply(dz, ps, fz).Name.Length):F1}");
+    var dd = ToleranceModel.Apply(dz, ps, fz);
+    var bp = (LoopShaper.Core.PlantModels.BuckPlant)dd.Plant;
+    Console.WriteLine($"op point us {Time(() => (int)DesignAnalyzer.SolveOperatingPoint(bp.PowerStage, atz!, dd.Analysis.ConductionModel).DutyCycle):F1}");
+    Console.WriteLine($"evaluate us {Time(() => evz.Evaluate(fz)!.CrossoverCount):F1}");
+    Console.WriteLine($"factors us {Time(() => MonteCarloRunner.Factors(ps, new MonteCarloSettings(), 5).Length):F1}");
+    return 0;
+}
+
+foreach (var file in Directory.GetFiles(dir, "*.json").Order(StringComparer.Ordinal).Where(_ => !cornersOnly))
 {
     var read = DesignFile.Read(File.ReadAllText(file));
     if (read.Design is not LoopDesign design)
@@ -78,6 +96,47 @@ foreach (var file in Directory.GetFiles(dir, "*.json").Order(StringComparer.Ordi
 }
 
 Console.WriteLine("targets (issue 2): response + margins <= 20 us, loop analysis (operating point, response, margins, step) <= 1000 us");
+
+// Corners and Monte Carlo (issue: corners, tolerances and closed-loop performance).
+Console.WriteLine();
+Console.WriteLine($"{"design",-40} {"corners",8} {"table ms",9} {"MC 10k s",9} {"fast",6} {"yield %",8} {"max |dPM| deg",14}");
+var mcRows = new JsonArray();
+foreach (var file in Directory.GetFiles(dir, "*.json").Order(StringComparer.Ordinal))
+{
+    if (DesignFile.Read(File.ReadAllText(file)).Design is not LoopDesign design || !DesignAnalyzer.Analyze(design).IsValid)
+    {
+        continue;
+    }
+
+    CornerTable table = CornerSweep.Run(design);
+    double tableMs = Time(() => CornerSweep.Run(design).Rows.Length) / 1000.0;
+    var settings = new MonteCarloSettings(Samples: 10_000, Seed: 1);
+    MonteCarloRunner.Run(design, settings with { Samples = 500 });
+    var mc = MonteCarloRunner.Run(design, settings);
+    double mcS = Enumerable.Range(0, 3).Min(_ => MonteCarloRunner.Run(design, settings).ElapsedS);
+
+    // Agreement of the direct evaluator with the full analysis on 200 samples.
+    double maxDiff = 0;
+    var fixedDesign = CornerSweep.Fixed(design);
+    var at = MonteCarloRunner.ConditionOf(fixedDesign, settings);
+    if (DirectLoopEvaluator.Supports(fixedDesign))
+    {
+        var ev = new DirectLoopEvaluator(fixedDesign, mc.Parameters, at);
+        for (int i = 0; i < 200; i++)
+        {
+            var f = MonteCarloRunner.Factors(mc.Parameters, settings, i);
+            if (ev.Evaluate(f) is { PhaseMarginDeg: double a } && MonteCarloRunner.FullFigures(fixedDesign, mc.Parameters, f, at) is { PhaseMarginDeg: double b })
+            {
+                maxDiff = Math.Max(maxDiff, Math.Abs(a - b));
+            }
+        }
+    }
+
+    Console.WriteLine($"{Path.GetFileName(file),-40} {table.Rows.Length,8} {tableMs,9:F2} {mcS,9:F3} {mc.FastPathCount,6} {mc.YieldPct,8:F1} {maxDiff,14:G3}");
+    mcRows.Add(new JsonObject { ["design"] = Path.GetFileName(file), ["corners"] = table.Rows.Length, ["cornerTableMs"] = tableMs, ["monteCarlo10kS"] = mcS, ["fastPathSamples"] = mc.FastPathCount });
+}
+
+Console.WriteLine("targets (corners issue): corner table (>= 27 corners) <= 20 ms; 10,000-sample Monte Carlo with full margins <= 0.2 s");
 if (export is not null)
 {
     File.WriteAllText(export, rows.ToJsonString(new System.Text.Json.JsonSerializerOptions { WriteIndented = true }));

@@ -33,6 +33,7 @@ public sealed class DirectLoopEvaluator
     private readonly OperatingCondition _at;
     private readonly double[] _omega;
     private readonly Complex[] _fixedCompensator;
+    private readonly TransferFunctions.TransferFunction? _placement;
     private readonly double _startPhaseRad;
     private readonly double _limitArgRad;
     private readonly int _integrators;
@@ -59,8 +60,8 @@ public sealed class DirectLoopEvaluator
         _fixedCompensator = [];
         if (design.Compensator is CompensatorPlacement p)
         {
-            var gc = p.TransferFunction();
-            _fixedCompensator = [.. _omega.Select(gc.Evaluate)];
+            _placement = p.TransferFunction();
+            _fixedCompensator = [.. _omega.Select(_placement.Evaluate)];
         }
 
         // The continuous phase at the start of the range and the limit at 0+, from the full model of the nominal design.
@@ -131,27 +132,27 @@ public sealed class DirectLoopEvaluator
         switch (st.Kind)
         {
             case 0:
-                return k >= 0 ? _fixedCompensator[k] : ((CompensatorPlacement)_design.Compensator).TransferFunction().Evaluate(s.Imaginary);
+                return k >= 0 ? _fixedCompensator[k] : _placement!.Evaluate(s.Imaginary);
             case 1:
-            {
-                Complex zf = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
-                Complex zin = st.Type == CompensatorType.TypeIII ? Parallel(st.R1, st.R3 + (1.0 / (s * st.C3))) : st.R1;
-                Complex ideal = zf / zin;
-                if (st.A0 <= 0)
                 {
-                    return ideal;
+                    Complex zf = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
+                    Complex zin = st.Type == CompensatorType.TypeIII ? Parallel(st.R1, st.R3 + (1.0 / (s * st.C3))) : st.R1;
+                    Complex ideal = zf / zin;
+                    if (st.A0 <= 0)
+                    {
+                        return ideal;
+                    }
+
+                    Complex invA = (1.0 + (s / st.Wa)) * (st.W2 > 0 ? 1.0 + (s / st.W2) : Complex.One) / st.A0;
+                    Complex load = st.Rb > 0 ? (1.0 / zin) + (1.0 / st.Rb) : 1.0 / zin;
+                    return ideal / (1.0 + ((1.0 + (zf * load)) * invA));
                 }
 
-                Complex invA = (1.0 + (s / st.Wa)) * (st.W2 > 0 ? 1.0 + (s / st.W2) : Complex.One) / st.A0;
-                Complex load = st.Rb > 0 ? (1.0 / zin) + (1.0 / st.Rb) : 1.0 / zin;
-                return ideal / (1.0 + ((1.0 + (zf * load)) * invA));
-            }
-
             default:
-            {
-                Complex zn = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
-                return st.Gm * st.Ro * zn / (st.Ro + zn);
-            }
+                {
+                    Complex zn = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
+                    return st.Gm * st.Ro * zn / (st.Ro + zn);
+                }
         }
     }
 
@@ -162,9 +163,23 @@ public sealed class DirectLoopEvaluator
     {
         var buck = (BuckPlant)d.Plant;
         var stage = buck.PowerStage;
-        var op = DesignAnalyzer.SolveOperatingPoint(stage, _at, d.Analysis.ConductionModel);
-        bool dcm = op.RectifierConductionFraction is not null;
-        var model = dcm ? DcmBuck.Coefficients(stage, op) : new AveragedBuck(op.EffectiveInputVoltageV, op.DutyCycle, op.SeriesResistanceOhm, 1.0);
+        // The steady state as DesignAnalyzer.SolveOperatingPoint picks it, without its derivations.
+        var (duty, veff, rs, vOn, vOff, _, physicalDcm) = BuckOperatingPoint.Balance(stage, _at);
+        var choice = d.Analysis.ConductionModel;
+        bool dcm = choice != ConductionModelChoice.Continuous && physicalDcm;
+        if ((choice == ConductionModelChoice.Discontinuous && !dcm) || (dcm && !(_at.LoadCurrentA > 0)))
+        {
+            return false;
+        }
+
+        if (dcm)
+        {
+            duty = BuckOperatingPoint.DiscontinuousDutyCycle(stage, _at);
+            (vOn, vOff) = (_at.InputVoltageV - stage.OutputVoltageV, stage.OutputVoltageV + stage.Rectifier.ForwardDropV);
+        }
+
+        double? loadOhm = _at.LoadCurrentA > 0 ? stage.OutputVoltageV / _at.LoadCurrentA : null;
+        var model = dcm ? DcmBuck.Coefficients(stage, _at, duty) : new AveragedBuck(veff, duty, rs, 1.0);
         var st = new Stage
         {
             L = stage.Inductor.InductanceH,
@@ -172,7 +187,7 @@ public sealed class DirectLoopEvaluator
             Gv = model.OutputGain,
             Ad = model.DutyGainV,
             Dcm = dcm,
-            LoadConductance = op.LoadResistanceOhm is double r ? 1.0 / r : 0.0,
+            LoadConductance = loadOhm is double r ? 1.0 / r : 0.0,
             BranchC = [.. stage.OutputCapacitors.Select(b => b.TotalCapacitanceF)],
             BranchEsr = [.. stage.OutputCapacitors.Select(b => b.TotalEsrOhm)],
             BranchEsl = [.. stage.OutputCapacitors.Select(b => b.TotalEslH)],
@@ -186,8 +201,8 @@ public sealed class DirectLoopEvaluator
                 st.DelayS = vm.TotalDelayS(fs);
                 break;
             case PeakCurrentModeControl pcm:
-                double ts = 1.0 / fs, ri = pcm.SenseGainOhm, dd = op.DutyCycle;
-                double sn = ri * op.OnIntervalInductorVoltageV / st.L, sf = ri * op.OffIntervalInductorVoltageV / st.L;
+                double ts = 1.0 / fs, ri = pcm.SenseGainOhm, dd = duty;
+                double sn = ri * vOn / st.L, sf = ri * vOff / st.L;
                 if (!(sn > 0) || !(sf > 0))
                 {
                     return false;

@@ -14,6 +14,7 @@ namespace LoopShaper.Core.Corners;
 /// <param name="WorstSamples">The worst samples: failing ones first, then by smallest phase margin.</param>
 /// <param name="FastPathCount">Samples evaluated by the direct frequency-domain evaluator (<see cref="DirectLoopEvaluator"/>); the rest by the full analysis.</param>
 /// <param name="ElapsedS">Wall-clock time of the run, s.</param>
+/// <param name="AllSamples">Every analysed sample, in index order, when <see cref="MonteCarloSettings.KeepAllSamples"/> asked for them; empty otherwise.</param>
 public sealed record MonteCarloResult(
     MonteCarloSettings Settings,
     ImmutableArray<ToleranceParameter> Parameters,
@@ -24,7 +25,8 @@ public sealed record MonteCarloResult(
     ImmutableArray<FigureDistribution> Distributions,
     ImmutableArray<MonteCarloSample> WorstSamples,
     int FastPathCount,
-    double ElapsedS)
+    double ElapsedS,
+    ImmutableArray<MonteCarloSample> AllSamples)
 {
     /// <summary>Share of the analysed samples that meet every criterion, % (0 when none was analysed).</summary>
     public double YieldPct => Completed > 0 ? 100.0 * PassedCount / Completed : 0.0;

@@ -15,7 +15,7 @@ namespace LoopShaper.Core.Corners;
 /// </summary>
 public static class MonteCarloRunner
 {
-    private const int ChunkSize = 32;
+    private const int ChunkSize = 8;
 
     /// <summary>Runs the samples. Progress is reported about every 1 % of the samples.</summary>
     public static MonteCarloResult Run(LoopDesign design, MonteCarloSettings settings, IProgress<MonteCarloProgress>? progress = null, CancellationToken cancellation = default)
@@ -94,7 +94,8 @@ public static class MonteCarloRunner
             .Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))
             .ToImmutableArray();
         progress?.Report(new MonteCarloProgress(completed, n));
-        return new MonteCarloResult(settings, parameters, at, completed, cancelled, passed, [.. dists], worst, indices.Count(i => fast[i]), clock.Elapsed.TotalSeconds);
+        return new MonteCarloResult(settings, parameters, at, completed, cancelled, passed, [.. dists], worst, indices.Count(i => fast[i]), clock.Elapsed.TotalSeconds,
+            settings.KeepAllSamples ? [.. indices.Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))] : []);
     }
 
     /// <summary>The factors of sample <paramref name="index"/>: uniform in [low, high], or normal about the centre with sigma = (high - low) / 6.</summary>

@@ -12,6 +12,7 @@ namespace LoopShaper.Core.Corners;
 /// <param name="WorstCount">How many of the worst samples to keep with their parameter values.</param>
 /// <param name="HistogramBins">Bins of each histogram.</param>
 /// <param name="MaxDegreeOfParallelism">Threads to use; null takes every core.</param>
+/// <param name="KeepAllSamples">True to keep every sample in <see cref="MonteCarloResult.AllSamples"/> (for a CSV of the run).</param>
 public sealed record MonteCarloSettings(
     int Samples = 1000,
     ulong Seed = 1,
@@ -21,7 +22,8 @@ public sealed record MonteCarloSettings(
     ToleranceSpec? Tolerances = null,
     int WorstCount = 10,
     int HistogramBins = 40,
-    int? MaxDegreeOfParallelism = null)
+    int? MaxDegreeOfParallelism = null,
+    bool KeepAllSamples = false)
 {
     /// <summary>The largest number of samples a run takes.</summary>
     public const int MaxSamples = 100_000;

@@ -30,19 +30,12 @@ public static class BuckOperatingPoint
         double vin = at.InputVoltageV, vout = stage.OutputVoltageV, i = at.LoadCurrentA;
         double ron = stage.HighSideOnResistanceOhm, rlow = stage.Rectifier.OnResistanceOhm, vf = stage.Rectifier.ForwardDropV;
         double dcr = stage.Inductor.DcrOhm, l = stage.Inductor.InductanceH, fs = stage.SwitchingFrequencyHz;
-        double veff = vin + vf - (i * (ron - rlow));
-        double d = (vout + vf + (i * (dcr + rlow))) / veff;
+        var (d, veff, rs, vOn, vOff, ripple, dcm) = Balance(stage, at);
         double dIdeal = vout / vin;
         double dp = 1 - d;
-        double rs = (d * ron) + (dp * rlow) + dcr;
-
-        // Off-interval inductor voltage: Vout + Vf + I (Rlow + DCR), for D' Ts; on-interval: Vin - Vout - I (Ron + DCR).
-        double vOff = vout + vf + (i * (rlow + dcr));
-        double vOn = vin - vout - (i * (ron + dcr));
-        double ripple = vOff * dp / (l * fs);
         double? rLoad = i > 0 ? vout / i : null;
         double boundary = ripple / 2;
-        var mode = stage.Rectifier.Kind == RectifierKind.Diode && i < boundary ? ConductionMode.Discontinuous : ConductionMode.Continuous;
+        var mode = dcm ? ConductionMode.Discontinuous : ConductionMode.Continuous;
         double vRipple = OutputRipple(stage, d, ripple, rLoad);
 
         var steps = new List<Derivation>
@@ -68,6 +61,33 @@ public static class BuckOperatingPoint
     }
 
     /// <summary>
+    /// The CCM volt-second balance alone (no derivations, no ripple voltage), shared with the Monte Carlo fast path:
+    /// D, Veff = Vin + Vf - I (Ron - Rlow), Rs = D Ron + D' Rlow + DCR, the on- and off-interval inductor voltages
+    /// Vin - Vout - I (Ron + DCR) and Vout + Vf + I (Rlow + DCR), the ripple current and whether a diode rectifier is in DCM.
+    /// </summary>
+    internal static (double DutyCycle, double EffectiveInputVoltageV, double SeriesResistanceOhm, double OnV, double OffV, double RippleA, bool Discontinuous) Balance(BuckPowerStage stage, OperatingCondition at)
+    {
+        double vin = at.InputVoltageV, vout = stage.OutputVoltageV, i = at.LoadCurrentA;
+        double ron = stage.HighSideOnResistanceOhm, rlow = stage.Rectifier.OnResistanceOhm, vf = stage.Rectifier.ForwardDropV;
+        double dcr = stage.Inductor.DcrOhm, l = stage.Inductor.InductanceH, fs = stage.SwitchingFrequencyHz;
+        double veff = vin + vf - (i * (ron - rlow));
+        double d = (vout + vf + (i * (dcr + rlow))) / veff;
+        double dp = 1 - d;
+        double rs = (d * ron) + (dp * rlow) + dcr;
+        double vOff = vout + vf + (i * (rlow + dcr));
+        double vOn = vin - vout - (i * (ron + dcr));
+        double ripple = vOff * dp / (l * fs);
+        return (d, veff, rs, vOn, vOff, ripple, stage.Rectifier.Kind == RectifierKind.Diode && i < ripple / 2);
+    }
+
+    /// <summary>The DCM duty cycle D = sqrt(2 L I (Vout + Vf) / (Ts (Vin - Vout) (Vin + Vf))) (see <see cref="SolveDiscontinuous"/>).</summary>
+    internal static double DiscontinuousDutyCycle(BuckPowerStage stage, OperatingCondition at)
+    {
+        double vin = at.InputVoltageV, vout = stage.OutputVoltageV, vf = stage.Rectifier.ForwardDropV;
+        return Math.Sqrt(2 * stage.Inductor.InductanceH * at.LoadCurrentA * (vout + vf) * stage.SwitchingFrequencyHz / ((vin - vout) * (vin + vf)));
+    }
+
+    /// <summary>
     /// The DCM steady state of a diode rectifier, conduction losses neglected apart from the diode drop (at loads below
     /// the boundary the I R drops are small beside Vout). Volt-second balance D (Vin - Vout) = D2 (Vout + Vf) and the
     /// load current I = Ipk (D + D2) / 2 with Ipk = (Vin - Vout) D Ts / L give
@@ -79,7 +99,7 @@ public static class BuckOperatingPoint
         double vin = at.InputVoltageV, vout = stage.OutputVoltageV, i = at.LoadCurrentA, vf = stage.Rectifier.ForwardDropV;
         double l = stage.Inductor.InductanceH, fs = stage.SwitchingFrequencyHz, ts = 1.0 / fs;
         double vOn = vin - vout, vOff = vout + vf;
-        double d = Math.Sqrt(2 * l * i * vOff / (ts * vOn * (vin + vf)));
+        double d = DiscontinuousDutyCycle(stage, at);
         double d2 = d * vOn / vOff;
         double ipk = vOn * d * ts / l;
         double r = vout / i;

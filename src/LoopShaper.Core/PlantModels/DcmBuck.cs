@@ -35,7 +35,13 @@ public static class DcmBuck
             throw new InvalidOperationException("The DCM model needs an operating point in DCM with a load above zero (at no load the converter skips pulses).");
         }
 
-        double vg = op.Condition.InputVoltageV, v = stage.OutputVoltageV, vf = stage.Rectifier.ForwardDropV, i = op.Condition.LoadCurrentA, d = op.DutyCycle;
+        return Coefficients(stage, op.Condition, op.DutyCycle);
+    }
+
+    /// <summary>The DCM coefficients at a condition and DCM duty cycle (shared with the Monte Carlo fast path).</summary>
+    internal static AveragedBuck Coefficients(BuckPowerStage stage, OperatingCondition at, double d)
+    {
+        double vg = at.InputVoltageV, v = stage.OutputVoltageV, vf = stage.Rectifier.ForwardDropV, i = at.LoadCurrentA;
         double q = d * (vg + vf);
         return new AveragedBuck(2 * (vg + vf), d * (1 + ((vg + vf) / (vg - v))), q / i, q * (vg + vf) / ((v + vf) * (vg - v)));
     }

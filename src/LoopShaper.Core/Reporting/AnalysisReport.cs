@@ -67,6 +67,9 @@ public sealed record AnalysisReport
     /// <summary>The loop at every input and load corner, with the model each used (power-stage plants only).</summary>
     public ImmutableArray<CornerReport> Corners { get; init; } = [];
 
+    /// <summary>The corner table over input, load and tolerances (<see cref="Corners.CornerSweep"/>); null when not computed.</summary>
+    public CornerTableReport? CornerTable { get; init; }
+
     /// <summary>Reference step.</summary>
     public StepReport? ReferenceStep { get; init; }
 

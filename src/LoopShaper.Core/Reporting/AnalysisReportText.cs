@@ -69,6 +69,11 @@ public static class AnalysisReportText
             Corners(t, report);
         }
 
+        if (report.CornerTable is { } ct)
+        {
+            CornerTable(t, ct);
+        }
+
         if (report.ReferenceStep is { } r)
         {
             Section(t, $"Reference step of {Format(r.StepV ?? 0, "V")}");
@@ -170,6 +175,29 @@ public static class AnalysisReportText
                 : $"{c.Model}, D {F(c.DutyCycle, "F3")}, fc {(c.CrossoverHz is null ? "none" : Q(c.CrossoverHz, "Hz"))}, PM {(c.PhaseMarginDeg is null ? "none" : F(c.PhaseMarginDeg, "F1") + " deg")}, GM {(c.GainMarginDb is null ? "none" : F(c.GainMarginDb, "F1") + " dB")}{(c.Qp is null ? "" : ", Qp " + F(c.Qp, "F2"))}{(c.ClosedLoopStable == false ? ", UNSTABLE" : "")}{(c.Note is null ? "" : " (" + c.Note + ")")}";
             t.Append("  ").Append(where).Append(' ').Append(what).Append('\n');
         }
+    }
+
+    private static void CornerTable(StringBuilder t, CornerTableReport table)
+    {
+        Section(t, $"Corner table ({table.Rows.Count} corners: input x load x tolerances; * marks the worst of a column)");
+        t.Append("  parameters: ").Append(string.Join(", ", table.Parameters)).Append('\n');
+        t.Append("  ").Append("corner".PadRight(40)).Append(" model            fc           PM         GM up      GM low     load step    recovery    verdict\n");
+        for (int i = 0; i < table.Rows.Count; i++)
+        {
+            var r = table.Rows[i];
+            string Mark(int? worst) => worst == i ? "*" : " ";
+            t.Append("  ").Append(r.Label.PadRight(40)).Append(' ')
+                .Append((r.Model ?? "-").PadRight(16)).Append(' ')
+                .Append((r.CrossoverHz is null ? "none" : Q(r.CrossoverHz, "Hz")).PadRight(11)).Append(Mark(table.HighestCrossoverRow)).Append(' ')
+                .Append((r.PhaseMarginDeg is null ? "none" : F(r.PhaseMarginDeg, "F1") + " deg").PadRight(10)).Append(Mark(table.WorstPhaseMarginRow)).Append(' ')
+                .Append((r.UpperGainMarginDb is null ? "none" : F(r.UpperGainMarginDb, "F1") + " dB").PadRight(9)).Append(Mark(table.WorstUpperGainMarginRow)).Append(' ')
+                .Append((r.LowerGainMarginDb is null ? "none" : F(r.LowerGainMarginDb, "F1") + " dB").PadRight(10)).Append(' ')
+                .Append((r.LoadStepDeviationV is null ? "-" : Q(r.LoadStepDeviationV, "V")).PadRight(11)).Append(Mark(table.WorstLoadStepRow)).Append(' ')
+                .Append((r.RecoveryTimeS is null ? "-" : Q(r.RecoveryTimeS, "s")).PadRight(11)).Append(' ')
+                .Append(r.Passed ? "pass" : "FAIL: " + string.Join("; ", r.Failures)).Append('\n');
+        }
+
+        t.Append("  verdict: ").Append(table.AllPass ? "every corner meets the criteria" : $"{table.Rows.Count(r => !r.Passed)} of {table.Rows.Count} corners FAIL").Append('\n');
     }
 
     private static void Compensator(StringBuilder t, CompensatorReport c)
