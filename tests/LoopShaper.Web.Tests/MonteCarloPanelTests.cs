@@ -8,9 +8,16 @@ using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LoopShaper.Web.Tests;
 
-/// <summary>The Monte Carlo panel: progress, cancel within 100 ms, the results as the core gives them, opening a sample.</summary>
+/// <summary>
+/// The Monte Carlo panel: progress, cancel within 100 ms, the results as the core gives them, opening a sample. Run
+/// alone (not beside the other test classes) so that the stop latency measures the run, not this project's own load.
+/// </summary>
+[Collection(MonteCarloPanelTests.Alone)]
 public sealed class MonteCarloPanelTests : BunitContext
 {
+    /// <summary>Name of the collection that runs without parallel neighbours.</summary>
+    public const string Alone = "monte-carlo-alone";
+
     public MonteCarloPanelTests()
     {
         JSInterop.Mode = JSRuntimeMode.Strict;
@@ -135,3 +142,7 @@ public sealed class MonteCarloPanelTests : BunitContext
         return workspace;
     }
 }
+
+/// <summary>Runs <see cref="MonteCarloPanelTests"/> with no other test class in parallel.</summary>
+[CollectionDefinition(MonteCarloPanelTests.Alone, DisableParallelization = true)]
+public sealed class MonteCarloAloneGroup;
