@@ -121,11 +121,11 @@ public static class TransientFigure
             {
                 var (lo, hi) = ChartNumbers.Extent(t.Response.Value, -1, 1);
                 data.Add(new Scatter { Name = "recovered", Mode = ModeFlag.Lines, X = [rt, rt], Y = [lo, hi], XAxis = x, YAxis = y, Line = new Line { Color = ChartPalette.GainMargin, Width = 1.6m, Dash = "dash" }, HoverInfo = HoverInfoFlag.Skip });
-                notes.Add(Note(x + " domain", y + " domain", 0.98m, isReference ? 0.08m : 0.92m, $"recovered {EngineeringFormat.Format(rt, "s")} (±{EngineeringFormat.Format(t.RecoveryBand, "V")})", ChartPalette.GainMargin, right: true));
+                notes.Add(Note(x + " domain", y + " domain", 0.98m, peakY < final ? 0.92m : 0.08m, $"recovered {EngineeringFormat.Format(rt, "s")} (±{EngineeringFormat.Format(t.RecoveryBand, "V")})", ChartPalette.GainMargin, right: true));
             }
             else
             {
-                notes.Add(Note(x + " domain", y + " domain", 0.98m, isReference ? 0.08m : 0.92m, "not recovered in the simulated time", ChartPalette.Margin, right: true));
+                notes.Add(Note(x + " domain", y + " domain", 0.98m, peakY < final ? 0.92m : 0.08m, "not recovered in the simulated time", ChartPalette.Margin, right: true));
             }
         }
 
