@@ -18,7 +18,9 @@ namespace LoopShaper.Core.Corners;
 /// algebra as <see cref="PeakCurrentModeBuck"/> divided by Dy). Closed-loop stability by the argument principle on
 /// 1 + T along the imaginary axis (Nyquist; e.g. Franklin, Powell and Emami-Naeini, Feedback Control of Dynamic Systems,
 /// sec. 6.3): with no open-loop pole in the right half plane and n integrators, the number of closed-loop right-half-plane
-/// poles is Z = -(2 D - n pi) / (2 pi), D the change of arg(1 + T) from 0+ to infinity. A sample it cannot judge
+/// poles is Z = -(2 D - n pi) / (2 pi), D the change of arg(1 + T) from 0+ to infinity. Angles are unwrapped by counting
+/// the grid intervals where T (phase crossings) or 1 + T (encirclements of -1) crosses the negative real axis, so the
+/// grid loop needs no arctangent or logarithm; those are taken only at the crossings. A sample it cannot judge
 /// (subharmonic current loop, gain still above 0 dB at the top of the range, Z not near an integer) returns null and
 /// is analysed in full.
 /// </summary>
@@ -39,6 +41,10 @@ public sealed class DirectLoopEvaluator
     private readonly int _integrators;
     private readonly double[] _lm;
     private readonly double[] _ph;
+    private readonly double[] _re;
+    private readonly double[] _im;
+    private readonly Complex[] _delay;
+    private readonly double _delayS;
     private Stage _s;
 
     /// <summary>An evaluator for a design (its crossover target resolved, <see cref="CornerSweep.Fixed"/>) at an operating condition. Not thread safe: one per thread.</summary>
@@ -57,6 +63,8 @@ public sealed class DirectLoopEvaluator
         _omega = [.. new FrequencyGrid(a.StartHz, a.StopHz, GridPoints).LogSpaced().Select(f => 2 * Math.PI * f)];
         _lm = new double[GridPoints];
         _ph = new double[GridPoints];
+        _re = new double[GridPoints];
+        _im = new double[GridPoints];
         _fixedCompensator = [];
         if (design.Compensator is CompensatorPlacement p)
         {
@@ -69,6 +77,8 @@ public sealed class DirectLoopEvaluator
         var t = DesignAnalyzer.BuildLoop(nominal, _at).Loop.LoopGain;
         _startPhaseRad = t.PhaseRad(_omega[0]);
         _integrators = Math.Max(-t.OriginOrder, 0);
+        _delayS = t.DelayS;
+        _delay = [.. _omega.Select(w => Complex.FromPolarCoordinates(1.0, -w * _delayS))];
         double tiny = _omega[0] * 1e-6;
         _limitArgRad = _integrators > 0 ? t.PhaseRad(tiny) : Complex.Add(1.0, t.Evaluate(tiny)).Phase;
     }
@@ -100,58 +110,76 @@ public sealed class DirectLoopEvaluator
     /// <summary>T(j omega) at one frequency for the prepared sample; <paramref name="k"/> the grid index or -1 off the grid.</summary>
     private Complex Loop(double w, int k)
     {
-        var s = new Complex(0, w);
         ref readonly var st = ref _s;
-        Complex y = st.LoadConductance;
+        // Y = 1/R + sum of j w C / ((1 - w^2 ESL C) + j w ESR C).
+        double yr = st.LoadConductance, yi = 0;
         for (int b = 0; b < st.BranchC.Length; b++)
         {
-            double c = st.BranchC[b];
-            y += s * c / (1.0 + (s * (st.BranchEsr[b] * c)) + (s * s * (st.BranchEsl[b] * c)));
+            double c = st.BranchC[b], wc = w * c;
+            double dr = 1.0 - (w * wc * st.BranchEsl[b]), di = wc * st.BranchEsr[b];
+            double inv = wc / ((dr * dr) + (di * di));
+            yr += di * inv;
+            yi += dr * inv;
         }
 
+        var y = new Complex(yr, yi);
         var zs = new Complex(st.Reff, w * st.L);
         Complex den = (zs * y) + st.Gv;
         if (st.CurrentMode)
         {
-            Complex he = st.Dcm ? Complex.Zero : 1.0 + (s / (st.Wn * PeakCurrentModeBuck.SamplingZeroQ)) + (s * s / (st.Wn * st.Wn));
+            Complex he = st.Dcm ? Complex.Zero : new Complex(1.0 - (w * w / (st.Wn * st.Wn)), w / (st.Wn * PeakCurrentModeBuck.SamplingZeroQ));
             den += st.Fm * st.Ad * ((st.Ri * he * y) - st.Kr);
         }
 
-        Complex plant = st.Fm * st.Ad * st.Sense / den;
+        Complex plant = Div(st.Fm * st.Ad * st.Sense, den);
         if (st.DelayS > 0)
         {
-            plant *= Complex.FromPolarCoordinates(1.0, -w * st.DelayS);
+            plant *= k >= 0 && st.DelayS == _delayS ? _delay[k] : Complex.FromPolarCoordinates(1.0, -w * st.DelayS);
         }
 
-        return plant * Compensator(s, k);
+        return plant * Compensator(w, k);
     }
 
-    private Complex Compensator(Complex s, int k)
+    /// <summary>a / b with one real division.</summary>
+    private static Complex Div(Complex a, Complex b)
+    {
+        double inv = 1.0 / ((b.Real * b.Real) + (b.Imaginary * b.Imaginary));
+        return new Complex(((a.Real * b.Real) + (a.Imaginary * b.Imaginary)) * inv, ((a.Imaginary * b.Real) - (a.Real * b.Imaginary)) * inv);
+    }
+
+    private Complex Compensator(double w, int k)
     {
         ref readonly var st = ref _s;
+        var s = new Complex(0, w);
         switch (st.Kind)
         {
             case 0:
-                return k >= 0 ? _fixedCompensator[k] : _placement!.Evaluate(s.Imaginary);
+                return k >= 0 ? _fixedCompensator[k] : _placement!.Evaluate(w);
             case 1:
                 {
-                    Complex zf = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
-                    Complex zin = st.Type == CompensatorType.TypeIII ? Parallel(st.R1, st.R3 + (1.0 / (s * st.C3))) : st.R1;
-                    Complex ideal = zf / zin;
+                    // Zf = (1 + s R2 C1) / (s (C1 + C2) + s^2 R2 C1 C2) (Type II and III) or 1 / (s C1); Zin = R1 (1 + s R3 C3) / (1 + s (R1 + R3) C3) (Type III) or R1.
+                    Complex nf = st.Type == CompensatorType.TypeI ? Complex.One : new Complex(1.0, w * st.R2 * st.C1);
+                    Complex df = st.Type == CompensatorType.TypeI ? new Complex(0, w * st.C1) : new Complex(-w * w * st.R2 * st.C1 * st.C2, w * (st.C1 + st.C2));
+                    Complex ni = st.Type == CompensatorType.TypeIII ? new Complex(st.R1, w * st.R1 * st.R3 * st.C3) : st.R1;
+                    Complex di = st.Type == CompensatorType.TypeIII ? new Complex(1.0, w * (st.R1 + st.R3) * st.C3) : Complex.One;
+                    Complex ideal = Div(nf * di, df * ni);
                     if (st.A0 <= 0)
                     {
                         return ideal;
                     }
 
+                    Complex zf = Div(nf, df), zin = Div(ni, di);
                     Complex invA = (1.0 + (s / st.Wa)) * (st.W2 > 0 ? 1.0 + (s / st.W2) : Complex.One) / st.A0;
-                    Complex load = st.Rb > 0 ? (1.0 / zin) + (1.0 / st.Rb) : 1.0 / zin;
-                    return ideal / (1.0 + ((1.0 + (zf * load)) * invA));
+                    Complex load = st.Rb > 0 ? Div(di, ni) + (1.0 / st.Rb) : Div(di, ni);
+                    return Div(ideal, 1.0 + ((1.0 + (zf * load)) * invA));
                 }
 
             default:
                 {
-                    Complex zn = st.Type == CompensatorType.TypeI ? 1.0 / (s * st.C1) : Parallel(st.R2 + (1.0 / (s * st.C1)), 1.0 / (s * st.C2));
-                    return st.Gm * st.Ro * zn / (st.Ro + zn);
+                    // gm (Ro || Zn) = gm Ro Nn / (Ro Dn + Nn).
+                    Complex nn = st.Type == CompensatorType.TypeI ? Complex.One : new Complex(1.0, w * st.R2 * st.C1);
+                    Complex dn = st.Type == CompensatorType.TypeI ? new Complex(0, w * st.C1) : new Complex(-w * w * st.R2 * st.C1 * st.C2, w * (st.C1 + st.C2));
+                    return Div(st.Gm * st.Ro * nn, (st.Ro * dn) + nn);
                 }
         }
     }
@@ -257,47 +285,54 @@ public sealed class DirectLoopEvaluator
     private LoopFigures? Margins(double startHz, double stopHz)
     {
         int n = _omega.Length;
-        double prevArg = 0, argOnePlus = 0, startArgOnePlus = 0;
+        int cutsT = 0, cutsOnePlus = 0;
+        Complex prev = Complex.Zero;
         for (int k = 0; k < n; k++)
         {
-            double w = _omega[k];
-            var t = Loop(w, k);
-            double delay = w * _s.DelayS;
-            // The rational part's phase, unwrapped along the grid; the delay's phase added exactly.
-            var rational = _s.DelayS > 0 ? t * Complex.FromPolarCoordinates(1.0, delay) : t;
-            double p = rational.Phase;
-            if (k == 0)
+            var t = Loop(_omega[k], k);
+            double m2 = (t.Real * t.Real) + (t.Imaginary * t.Imaginary);
+            _lm[k] = m2 > 1 ? 1 : -1;
+            if (k > 0)
             {
-                p += 2 * Math.PI * Math.Round((_startPhaseRad + delay - p) / (2 * Math.PI));
-            }
-            else
-            {
-                p = prevArg + Wrap(p - prevArg);
+                // Crossings of the negative real axis by T (phase through -180 + k 360) and by 1 + T (T left of -1),
+                // counted with their direction: the continuous angle grows by 2 pi when Im goes from + to -.
+                if ((prev.Imaginary > 0) != (t.Imaginary > 0))
+                {
+                    double re0 = prev.Real + ((t.Real - prev.Real) * prev.Imaginary / (prev.Imaginary - t.Imaginary));
+                    int dir = prev.Imaginary > 0 ? 1 : -1;
+                    if (re0 < 0)
+                    {
+                        cutsT += dir;
+                    }
+
+                    if (re0 < -1)
+                    {
+                        cutsOnePlus += dir;
+                    }
+                }
             }
 
-            prevArg = p;
-            _ph[k] = p - delay;
-            _lm[k] = Math.Log(t.Magnitude);
-            double a1 = Complex.Add(1.0, t).Phase;
-            if (k == 0)
-            {
-                // 1 + T follows T where |T| >> 1: take the branch of arg(1 + T) nearest the continuous phase of T.
-                argOnePlus = _lm[0] > 0 ? a1 + (2 * Math.PI * Math.Round((_ph[0] - a1) / (2 * Math.PI))) : a1;
-                startArgOnePlus = argOnePlus;
-            }
-            else
-            {
-                argOnePlus += Wrap(a1 - Wrap(argOnePlus));
-            }
+            _ph[k] = cutsT;
+            _re[k] = t.Real;
+            _im[k] = t.Imaginary;
+            prev = t;
         }
 
-        if (_lm[n - 1] >= 0)
+        if (_lm[n - 1] > 0)
         {
             return null;
         }
 
-        // Argument principle: D = (arg at the start - limit at 0+) + change over the grid + (0 - principal arg at the top).
-        double total = (startArgOnePlus - _limitArgRad) + (argOnePlus - startArgOnePlus) - Wrap(argOnePlus);
+        // The branch of the start: continuous phase of T nearest the full model's; arg(1 + T) follows it where |T| > 1.
+        double p0 = Math.Atan2(_im[0], _re[0]);
+        double branchT = Math.Round((_startPhaseRad - p0) / (2 * Math.PI));
+        var one0 = new Complex(1.0 + _re[0], _im[0]);
+        double a0 = one0.Phase;
+        double m0 = _lm[0] > 0 ? Math.Round((p0 + (2 * Math.PI * branchT) - a0) / (2 * Math.PI)) : 0;
+
+        // Argument principle: D = (arg(1 + T) at the start - its limit at 0+) + change over the grid + (0 - principal arg at the top)
+        // = 2 pi (m0 + cuts) - limit (the principal parts cancel).
+        double total = (2 * Math.PI * (m0 + cutsOnePlus)) - _limitArgRad;
         double z = -((2 * total) - (_integrators * Math.PI)) / (2 * Math.PI);
         double zr = Math.Round(z);
         if (Math.Abs(z - zr) > 0.25)
@@ -310,12 +345,16 @@ public sealed class DirectLoopEvaluator
         int crossings = 0;
         for (int k = 0; k + 1 < n; k++)
         {
-            if ((_lm[k] > 0) != (_lm[k + 1] > 0))
+            if (_lm[k] != _lm[k + 1])
             {
                 double u = Root(k, LogMagnitude);
                 double w = Math.Exp(u);
-                double ph = PhaseNear(w, k);
-                double pm = 180.0 + (ph * 180.0 / Math.PI);
+                var t = Loop(w, -1);
+                // Continuous phase: principal angle on the branch of grid point k (its cut count and the start branch).
+                double pk = Math.Atan2(_im[k], _re[k]) + (2 * Math.PI * (branchT + _ph[k]));
+                double p = t.Phase;
+                p += 2 * Math.PI * Math.Round((pk - p) / (2 * Math.PI));
+                double pm = 180.0 + (p * 180.0 / Math.PI);
                 crossings++;
                 if (bestPm is null || pm < bestPm)
                 {
@@ -323,12 +362,13 @@ public sealed class DirectLoopEvaluator
                 }
             }
 
-            double l0 = Math.Floor((_ph[k] + Math.PI) / (2 * Math.PI)), l1 = Math.Floor((_ph[k + 1] + Math.PI) / (2 * Math.PI));
-            if (l0 != l1)
+            if (_ph[k] != _ph[k + 1])
             {
-                double target = (Math.Max(l0, l1) * 2 * Math.PI) - Math.PI;
-                int kk = k;
-                double u = Root(k, x => PhaseNear(Math.Exp(x), kk) - target);
+                double u = Root(k, x =>
+                {
+                    var t = Loop(Math.Exp(x), -1);
+                    return t.Imaginary / t.Magnitude;
+                });
                 double gm = -20.0 / Math.Log(10.0) * Math.Log(Loop(Math.Exp(u), -1).Magnitude);
                 if (gm > 0 && (upper is null || gm < upper))
                 {
@@ -348,24 +388,11 @@ public sealed class DirectLoopEvaluator
 
     private double LogMagnitude(double u) => Math.Log(Loop(Math.Exp(u), -1).Magnitude);
 
-    /// <summary>The continuous phase at w between grid points k and k + 1: the branch nearest the grid's interpolated phase.</summary>
-    private double PhaseNear(double w, int k)
-    {
-        double delay = w * _s.DelayS;
-        var t = Loop(w, -1);
-        double p = (_s.DelayS > 0 ? t * Complex.FromPolarCoordinates(1.0, delay) : t).Phase;
-        double u0 = Math.Log(_omega[k]), u1 = Math.Log(_omega[k + 1]), u = Math.Log(w);
-        double guess = _ph[k] + ((_ph[k + 1] - _ph[k]) * (u - u0) / (u1 - u0)) + delay;
-        return p + (2 * Math.PI * Math.Round((guess - p) / (2 * Math.PI))) - delay;
-    }
-
     private double Root(int k, Func<double, double> f)
     {
         double a = Math.Log(_omega[k]), b = Math.Log(_omega[k + 1]);
         return ScalarRootFinder.TryBrent(f, a, b, RootToleranceLnOmega, out double r) ? r : 0.5 * (a + b);
     }
-
-    private static double Wrap(double x) => x - (2 * Math.PI * Math.Round(x / (2 * Math.PI)));
 
     /// <summary>The coefficients of one prepared sample.</summary>
     private struct Stage
