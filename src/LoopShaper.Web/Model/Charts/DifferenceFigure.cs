@@ -40,10 +40,18 @@ public static class DifferenceFigure
             XAxis = [new XAxis { Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log, Title = new XAxisTitle { Text = "frequency (Hz)" }, ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI, Anchor = "y2", GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink }],
             YAxis =
             [
-                new YAxis { Title = new AxisTitle { Text = "Δ gain (dB)" }, Domain = [0.53m, 1m], GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
-                new YAxis { Title = new AxisTitle { Text = "Δ phase (deg)" }, Domain = [0m, 0.47m], GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
+                new YAxis { Title = new AxisTitle { Text = "Δ gain (dB)" }, Domain = [0.53m, 1m], Range = RangeOf(d.GainDb, 2.0), GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
+                new YAxis { Title = new AxisTitle { Text = "Δ phase (deg)" }, Domain = [0m, 0.47m], Range = RangeOf(d.PhaseDeg, 10.0), GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
             ],
         };
         return new ChartFigure(data, layout, []);
+    }
+
+    /// <summary>An axis range holding zero and every value, at least <paramref name="minSpan"/> wide, so that round-off never fills the panel.</summary>
+    private static object[] RangeOf(IEnumerable<double> values, double minSpan)
+    {
+        var (lo, hi) = ChartNumbers.Extent(values.Append(0.0), -minSpan / 2, minSpan / 2);
+        double pad = Math.Max((minSpan - (hi - lo)) / 2, 0) + (0.05 * (hi - lo));
+        return [lo - pad, hi + pad];
     }
 }
