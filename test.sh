@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Runs every LoopShaper test. Installs what the tests need on a fresh Debian machine first:
-# ngspice (live AC-analysis checks) and chromium (browser tests). Octave and SciPy are only needed to
+# ngspice (live AC-analysis checks), chromium (browser tests, report PDFs) and poppler-utils (pdfinfo, pdftotext and
+# pdftoppm read the report PDFs back). Octave and SciPy are only needed to
 # regenerate reference data or to run the benchmark scripts, not for the tests.
 set -euo pipefail
 cd "$(dirname "$0")"
@@ -8,6 +9,7 @@ cd "$(dirname "$0")"
 need=()
 command -v ngspice >/dev/null 2>&1 || need+=(ngspice)
 command -v chromium >/dev/null 2>&1 || need+=(chromium)
+command -v pdftoppm >/dev/null 2>&1 || need+=(poppler-utils)
 if [ ${#need[@]} -gt 0 ]; then
   echo "test.sh: installing ${need[*]}"
   SUDO=""

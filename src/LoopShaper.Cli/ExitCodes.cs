@@ -11,4 +11,7 @@ public static class ExitCodes
 
     /// <summary>Invalid input: bad command line, unreadable or invalid design file, output not writable.</summary>
     public const int InvalidInput = 2;
+
+    /// <summary>report --pdf: the HTML was written but the PDF could not be made (chromium missing or failing).</summary>
+    public const int PdfUnavailable = 3;
 }

@@ -13,7 +13,7 @@ public static class Program
     {
         ArgumentNullException.ThrowIfNull(output);
         ArgumentNullException.ThrowIfNull(error);
-        var root = new RootCommand("LoopShaper: analyse the feedback loop of a DC-DC buck converter from a design file, suggest a compensator, choose its parts and export them.")
+        var root = new RootCommand("LoopShaper: analyse the feedback loop of a DC-DC buck converter from a design file, suggest a compensator, choose its parts, export them and print a report.")
         {
             AnalyzeCommand.Create(output, error),
             BodeCommand.Create(output, error),
@@ -21,6 +21,7 @@ public static class Program
             SynthesizeCommand.Create(output, error),
             ExportCommand.Create(output, error),
             MonteCarloCommand.Create(output, error),
+            ReportCommand.Create(output, error),
         };
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)

@@ -29,7 +29,7 @@ public static class DesignFileEndpoints
             }
 
             return Results.File(Encoding.UTF8.GetBytes(json), "application/json", ShareToken.FileNameOf(read.Design.Name));
-        });
+        }).ExcludeFromDescription();
         return app;
     }
 }

@@ -8,6 +8,13 @@ builder.WebHost.UseUrls(builder.Configuration["urls"] ?? builder.Configuration["
 
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddSingleton<DemoDesign>();
+// The automation API's OpenAPI document, at /openapi/v1.json (docs/api.md).
+builder.Services.AddOpenApi(o => o.AddDocumentTransformer((doc, _, _) =>
+{
+    doc.Info.Title = "LoopShaper API";
+    doc.Info.Description = "Analyse a LoopShaper design file over HTTP: the same JSON as `loopshaper analyze FILE --format json`.";
+    return Task.CompletedTask;
+}));
 
 var app = builder.Build();
 
@@ -19,6 +26,9 @@ if (!app.Environment.IsDevelopment())
 app.UseAntiforgery();
 app.MapStaticAssets();
 app.MapDesignFileEndpoints();
+app.MapReportEndpoints();
+app.MapAnalyzeApi();
+app.MapOpenApi();
 app.Map("/error", () => Results.Problem("The workspace hit an unexpected error; the server log has the details."));
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 

@@ -8,7 +8,7 @@ namespace LoopShaper.Browser.Tests;
 /// state it reaches in the test output folder (screenshots/) and fails on any console error.
 /// </summary>
 [Collection(WorkspaceGroup.Name)]
-public sealed class WorkspaceTests(WorkspaceFixture fixture) : IAsyncLifetime
+public sealed partial class WorkspaceTests(WorkspaceFixture fixture) : IAsyncLifetime
 {
     private const string Inductance = "#f-plant-powerStage-inductor-inductanceH";
     private static readonly string ShotDir = Path.Combine(AppContext.BaseDirectory, "screenshots");

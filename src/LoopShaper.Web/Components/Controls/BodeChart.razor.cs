@@ -19,6 +19,7 @@ public sealed partial class BodeChart
     private DesignAnalysis? _drawnAnalysis;
     private BodeTraces _drawnShow = new();
     private PlacementTarget? _drawnSelected;
+    private MeasuredSet? _drawnMeasured;
     private ChartFigure? _firstFigure;
     private bool _drawn;
     private bool _needsRedraw;
@@ -43,6 +44,10 @@ public sealed partial class BodeChart
     [Parameter]
     public EventCallback OnChanged { get; set; }
 
+    /// <summary>A measured response to draw over the model, or null.</summary>
+    [Parameter]
+    public MeasuredSet? Measured { get; set; }
+
     /// <summary>Which traces are on.</summary>
     public BodeTraces Show { get; private set; } = new();
 
@@ -59,9 +64,10 @@ public sealed partial class BodeChart
     /// <inheritdoc />
     protected override void OnParametersSet()
     {
-        if (!ReferenceEquals(Analysis, _drawnAnalysis) || Show != _drawnShow || Selected != _drawnSelected)
+        if (!ReferenceEquals(Analysis, _drawnAnalysis) || Show != _drawnShow || Selected != _drawnSelected || !ReferenceEquals(Measured, _drawnMeasured))
         {
-            _figure = BodeFigure.Build(Analysis, Show, Form.Mode == CompensatorMode.Placement ? Selected : null);
+            _figure = BodeFigure.Build(Analysis, Show, Form.Mode == CompensatorMode.Placement ? Selected : null, MeasuredOverlay.Compare(Analysis, Measured));
+            _drawnMeasured = Measured;
             _drawnAnalysis = Analysis;
             _drawnShow = Show;
             _drawnSelected = Selected;

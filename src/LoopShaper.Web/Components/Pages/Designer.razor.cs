@@ -16,6 +16,7 @@ public sealed partial class Designer : IDisposable
 
     private bool _interactive;
     private string? _linkError;
+    private MeasuredSet? _measured;
 
     /// <summary>A design packed by <see cref="ShareToken"/>, from a share link.</summary>
     [SupplyParameterFromQuery(Name = ShareToken.QueryName)]

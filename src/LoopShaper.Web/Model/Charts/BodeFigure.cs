@@ -42,8 +42,8 @@ public static class BodeFigure
     /// <summary>Most points drawn per trace.</summary>
     public const int MaxPoints = 500;
 
-    /// <summary>Builds the figure of an analysis.</summary>
-    public static ChartFigure Build(DesignAnalysis analysis, BodeTraces show, PlacementTarget? selected)
+    /// <summary>Builds the figure of an analysis, with a measured response beside the model when one is given.</summary>
+    public static ChartFigure Build(DesignAnalysis analysis, BodeTraces show, PlacementTarget? selected, Core.Measurements.MeasurementComparison? measured = null)
     {
         var data = new List<ITrace>();
         var hits = new List<MarkerHit>();
@@ -83,6 +83,12 @@ public static class BodeFigure
         if (visible.Count == 0)
         {
             visible.Add(loop);
+        }
+
+        if (measured is not null)
+        {
+            AddMeasured(data, measured);
+            visible.Add(measured.Measured);
         }
 
         var magRange = MagnitudeRange(visible.SelectMany(r => r.MagnitudeDb));
@@ -172,6 +178,32 @@ public static class BodeFigure
             Visible = show ? VisibleEnum.True : VisibleEnum.False,
             HoverTemplate = name + ": %{y:.1f}° at %{x:.4s}Hz<extra></extra>",
         });
+    }
+
+    /// <summary>The measured samples as markers joined by a thin line, magnitude and (aligned) phase, in the measurement's colour.</summary>
+    private static void AddMeasured(List<ITrace> data, Core.Measurements.MeasurementComparison measured)
+    {
+        var r = measured.Measured;
+        string what = measured.Quantity == Core.Measurements.MeasuredQuantity.LoopGain ? "T" : "plant";
+        var mag = ChartNumbers.Thinned(r.FrequencyHz, r.MagnitudeDb, MaxPoints, 1e-3);
+        var phase = ChartNumbers.Thinned(r.FrequencyHz, r.PhaseDeg, MaxPoints, 1e-3);
+        foreach (var (xy, axis, name, unit) in new[] { (mag, "y", MeasuredOverlay.MeasuredName + " " + what, " dB"), (phase, "y2", MeasuredOverlay.MeasuredName + " " + what + " phase", "°") })
+        {
+            data.Add(new Scatter
+            {
+                Name = name,
+                LegendGroup = MeasuredOverlay.MeasuredName,
+                ShowLegend = axis == "y",
+                Mode = ModeFlag.Lines | ModeFlag.Markers,
+                X = xy.X,
+                Y = xy.Y,
+                XAxis = "x",
+                YAxis = axis,
+                Line = new Line { Color = ChartPalette.Measured, Width = 1m },
+                Marker = new Marker { Color = ChartPalette.Measured, Size = 5, Symbol = MarkerSymbol.Diamond },
+                HoverTemplate = name + ": %{y:.1f}" + unit + " at %{x:.4s}Hz<extra></extra>",
+            });
+        }
     }
 
     private static void AddPlantSingularities(List<ITrace> data, DesignAnalysis analysis)

@@ -21,6 +21,9 @@ public static class ChartPalette
     /// <summary>Gain margins: reddish purple.</summary>
     public const string GainMargin = "#CC79A7";
 
+    /// <summary>Measured responses: black (Okabe-Ito), drawn as diamonds.</summary>
+    public const string Measured = "#000000";
+
     /// <summary>Reference lines and text: near black.</summary>
     public const string Ink = "#1d232a";
 
