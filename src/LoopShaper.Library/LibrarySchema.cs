@@ -55,7 +55,7 @@ internal static class LibrarySchema
         CREATE TRIGGER branches_never_go BEFORE DELETE ON branches
           BEGIN SELECT RAISE(ABORT, 'branches are append-only'); END;
         CREATE TRIGGER designs_never_go BEFORE DELETE ON designs
-          BEGIN SELECT RAISE(ABORT, 'designs are never deleted from the library'); END;
+          BEGIN SELECT RAISE(ABORT, 'designs are append-only: never deleted from the library'); END;
         """,
     ];
 

@@ -1,4 +1,5 @@
 using LoopShaper.Web;
+using LoopShaper.Library;
 using LoopShaper.Web.Components;
 
 var builder = WebApplication.CreateBuilder(args);
@@ -8,6 +9,11 @@ builder.WebHost.UseUrls(builder.Configuration["urls"] ?? builder.Configuration["
 
 builder.Services.AddRazorComponents().AddInteractiveServerComponents();
 builder.Services.AddSingleton<DemoDesign>();
+
+// The design library: --library PATH, else Library:Path, else the user's data folder (docs/library.md).
+string libraryPath = LibraryLocation.Resolve(builder.Configuration[LibraryLocation.CommandLineKey], builder.Configuration[LibraryLocation.ConfigurationKey]);
+builder.Services.AddSingleton(sp => new LibraryHost(libraryPath, sp.GetRequiredService<ILogger<LibraryHost>>()));
+builder.Services.AddScoped<LibrarySession>();
 
 var app = builder.Build();
 
@@ -19,6 +25,11 @@ if (!app.Environment.IsDevelopment())
 app.UseAntiforgery();
 app.MapStaticAssets();
 app.MapDesignFileEndpoints();
+if (app.Configuration.GetValue<bool>(LibraryAutomationEndpoints.SwitchKey))
+{
+    app.MapLibraryAutomationEndpoints();
+}
+
 app.Map("/error", () => Results.Problem("The workspace hit an unexpected error; the server log has the details."));
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 
