@@ -39,7 +39,26 @@ public sealed partial class LibraryPanel : IDisposable
 
     private RevisionInfo? Basis => Session.BasisOf(Workspace);
 
-    private string BasisDesignName => Basis is { } b ? Host.Library?.Design(b.DesignId)?.Name ?? b.DesignName : string.Empty;
+    private (long DesignId, string Name)? _nameCache;
+
+    /// <summary>The basis design's library name, looked up once per design (the panel re-renders on every analysis).</summary>
+    private string BasisDesignName
+    {
+        get
+        {
+            if (Basis is not { } b)
+            {
+                return string.Empty;
+            }
+
+            if (_nameCache is not { } cached || cached.DesignId != b.DesignId)
+            {
+                _nameCache = (b.DesignId, Host.Library?.Design(b.DesignId)?.Name ?? b.DesignName);
+            }
+
+            return _nameCache.Value.Name;
+        }
+    }
 
     /// <inheritdoc />
     public void Dispose() => Session.Changed -= OnSessionChanged;
