@@ -1,5 +1,5 @@
-using LoopShaper.Web;
 using LoopShaper.Library;
+using LoopShaper.Web;
 using LoopShaper.Web.Components;
 
 var builder = WebApplication.CreateBuilder(args);
