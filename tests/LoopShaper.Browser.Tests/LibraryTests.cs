@@ -68,8 +68,10 @@ public sealed class LibraryTests(WorkspaceFixture fixture) : IAsyncLifetime
         // Plotly keeps the drawn traces on the chart's element: magnitude and phase of A and of B.
         Assert.Equal(4, await page.EvaluateAsync<int>("() => document.getElementById('compare-bode').data.length"));
         Assert.Equal(4, await page.EvaluateAsync<int>("() => document.getElementById('compare-step').data.length"));
-        await page.Locator("[data-compare]").ScrollIntoViewIfNeededAsync();
-        await Shot(page, "24-compare-overlay");
+        await page.EvalOnSelectorAsync("[data-compare-legend]", "e => e.scrollIntoView({ block: 'start' })");
+        await Shot(page, "24-compare-bode");
+        await page.EvalOnSelectorAsync("[data-compare-inputs]", "e => e.scrollIntoView({ block: 'end' })");
+        await Shot(page, "25-compare-steps-and-tables");
         lock (_consoleErrors)
         {
             Assert.Empty(_consoleErrors);

@@ -67,6 +67,12 @@ public sealed class KillTests
                 await Task.Delay(5);
             }
 
+            // Kill at a moment when at least one save is on its way.
+            while (Volatile.Read(ref inFlight) == 0 && DateTime.UtcNow < deadline && !writers.Any(t => t.IsFaulted))
+            {
+                Thread.SpinWait(20);
+            }
+
             inFlightAtKill = Volatile.Read(ref inFlight);
             await app.KillAsync();
             stop.Cancel();

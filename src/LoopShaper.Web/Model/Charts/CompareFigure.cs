@@ -68,8 +68,8 @@ public static class CompareFigure
         layout.XAxis = [TimeAxis("y", [0m, 0.46m]), TimeAxis("y2", [0.56m, 1m])];
         layout.YAxis =
         [
-            new YAxis { Title = new YAxisTitle { Text = "load step: output deviation (V)" }, Anchor = "x", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
-            new YAxis { Title = new YAxisTitle { Text = "reference step: output change (V)" }, Anchor = "x2", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+            new YAxis { Title = new YAxisTitle { Text = "load step (V)" }, Anchor = "x", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+            new YAxis { Title = new YAxisTitle { Text = "reference step (V)" }, Anchor = "x2", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
         ];
         layout.UiRevision = "compare-steps";
         return new ChartFigure(data, layout, []);
