@@ -18,7 +18,7 @@ public sealed partial class ComparePanel : IDisposable
     private string _a = OpenKey;
     private string _b = OpenKey;
     private ImmutableArray<ChoiceGroup> _choices = [];
-    private Shown? _shown;
+    private ShownComparison? _shown;
     private string? _error;
     private bool _busy;
     private int _serial;
@@ -29,7 +29,7 @@ public sealed partial class ComparePanel : IDisposable
     public DesignWorkspace Workspace { get; set; } = default!;
 
     /// <summary>The comparison on screen, or null.</summary>
-    public Shown? Current => _shown;
+    public ShownComparison? Current => _shown;
 
     [Inject]
     private LibraryHost Host { get; set; } = default!;
@@ -63,7 +63,7 @@ public sealed partial class ComparePanel : IDisposable
         {
             var analysisA = await Task.Run(() => DesignAnalyzer.Analyze(a.Value.Design));
             var analysisB = await Task.Run(() => DesignAnalyzer.Analyze(b.Value.Design));
-            _shown = new Shown(++_serial, a.Value.Label, b.Value.Label, analysisA, analysisB,
+            _shown = new ShownComparison(++_serial, a.Value.Label, b.Value.Label, analysisA, analysisB,
                 DesignFileDiff.Compare(a.Value.Json, b.Value.Json), ResultComparison.Compare(analysisA, analysisB));
         }
         finally
@@ -120,16 +120,6 @@ public sealed partial class ComparePanel : IDisposable
         string name = library.Design(stored.Info.DesignId)?.Name ?? stored.Info.DesignName;
         return ($"{name}, revision {id} ({stored.Info.BranchName})", stored.Content, read);
     }
-
-    /// <summary>A comparison on screen.</summary>
-    /// <param name="Serial">Counts comparisons: a new chart instance for each.</param>
-    /// <param name="LabelA">What A is.</param>
-    /// <param name="LabelB">What B is.</param>
-    /// <param name="AnalysisA">A analysed.</param>
-    /// <param name="AnalysisB">B analysed.</param>
-    /// <param name="Inputs">The design-file fields that differ.</param>
-    /// <param name="Results">The headline figures of both.</param>
-    public sealed record Shown(int Serial, string LabelA, string LabelB, DesignAnalysis AnalysisA, DesignAnalysis AnalysisB, ImmutableArray<InputDifference> Inputs, ImmutableArray<ResultFigure> Results);
 
     private sealed record Choice(string Key, string Label);
 
