@@ -1,3 +1,4 @@
+using LoopShaper.Library;
 using LoopShaper.Web;
 using LoopShaper.Web.Components;
 
@@ -16,6 +17,11 @@ builder.Services.AddOpenApi(o => o.AddDocumentTransformer((doc, _, _) =>
     return Task.CompletedTask;
 }));
 
+// The design library: --library PATH, else Library:Path, else the user's data folder (docs/library.md).
+string libraryPath = LibraryLocation.Resolve(builder.Configuration[LibraryLocation.CommandLineKey], builder.Configuration[LibraryLocation.ConfigurationKey]);
+builder.Services.AddSingleton(sp => new LibraryHost(libraryPath, sp.GetRequiredService<ILogger<LibraryHost>>()));
+builder.Services.AddScoped<LibrarySession>();
+
 var app = builder.Build();
 
 if (!app.Environment.IsDevelopment())
@@ -29,6 +35,11 @@ app.MapDesignFileEndpoints();
 app.MapReportEndpoints();
 app.MapAnalyzeApi();
 app.MapOpenApi();
+if (app.Configuration.GetValue<bool>(LibraryAutomationEndpoints.SwitchKey))
+{
+    app.MapLibraryAutomationEndpoints();
+}
+
 app.Map("/error", () => Results.Problem("The workspace hit an unexpected error; the server log has the details."));
 app.MapRazorComponents<App>().AddInteractiveServerRenderMode();
 

@@ -7,18 +7,23 @@ namespace LoopShaper.Browser.Tests;
 
 /// <summary>
 /// The web app started as a child process on a free loopback port (`dotnet LoopShaper.Web.dll --urls http://127.0.0.1:PORT`),
-/// in the Development environment so that static web assets are served from the build output's manifest.
+/// in the Development environment so that static web assets are served from the build output's manifest, with its
+/// design library in a new temporary folder (never the user's own library).
 /// </summary>
 public sealed class WebAppProcess : IAsyncDisposable
 {
     private readonly Process _process;
     private readonly StringBuilder _log = new();
 
-    private WebAppProcess(Process process, Uri baseUri)
+    private WebAppProcess(Process process, Uri baseUri, string libraryPath)
     {
         _process = process;
         BaseUri = baseUri;
+        LibraryPath = libraryPath;
     }
+
+    /// <summary>The app's design library file, in a temporary folder removed on dispose.</summary>
+    public string LibraryPath { get; }
 
     /// <summary>Where the app listens, ending in a slash.</summary>
     public Uri BaseUri { get; }
@@ -51,10 +56,13 @@ public sealed class WebAppProcess : IAsyncDisposable
         info.ArgumentList.Add(dll);
         info.ArgumentList.Add("--urls");
         info.ArgumentList.Add(url.ToString().TrimEnd('/'));
+        string library = Path.Combine(Directory.CreateTempSubdirectory("loopshaper-browser-library-").FullName, "library.db");
+        info.ArgumentList.Add("--library");
+        info.ArgumentList.Add(library);
         info.Environment["ASPNETCORE_ENVIRONMENT"] = "Development";
         info.Environment["DOTNET_NOLOGO"] = "1";
         var process = Process.Start(info) ?? throw new InvalidOperationException("could not start " + dll);
-        var app = new WebAppProcess(process, url);
+        var app = new WebAppProcess(process, url, library);
         process.OutputDataReceived += (_, e) => app.Append(e.Data);
         process.ErrorDataReceived += (_, e) => app.Append(e.Data);
         process.BeginOutputReadLine();
@@ -101,6 +109,14 @@ public sealed class WebAppProcess : IAsyncDisposable
         }
 
         _process.Dispose();
+        try
+        {
+            Directory.Delete(Path.GetDirectoryName(LibraryPath)!, recursive: true);
+        }
+        catch (IOException)
+        {
+            // Left to the OS's temp cleaning.
+        }
     }
 
     private void Append(string? line)

@@ -16,6 +16,7 @@ public sealed class DesignerPageTests : BunitContext
         PlotlyModule.Setup(JSInterop);
         JSInterop.SetupVoid("Blazor._internal.InputFile.init", _ => true);
         Services.AddSingleton<DemoDesign>();
+        TestLibrary.AddTo(Services);
         Services.AddLogging();
         SetRendererInfo(new Microsoft.AspNetCore.Components.RendererInfo("Server", true));
     }

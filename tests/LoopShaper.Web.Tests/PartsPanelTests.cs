@@ -130,6 +130,7 @@ public sealed class PartsPanelTests : BunitContext
         PlotlyModule.Setup(JSInterop);
         JSInterop.SetupVoid("Blazor._internal.InputFile.init", _ => true);
         Services.AddSingleton<DemoDesign>();
+        TestLibrary.AddTo(Services);
         SetRendererInfo(new RendererInfo("Server", true));
         var cut = Render<Designer>();
         await cut.WaitForAssertionAsync(() => cut.Find("[data-kpi-value='phase-margin']"), TimeSpan.FromSeconds(10));
