@@ -13,7 +13,6 @@ using Plotly.Blazor.Traces.ScatterLib;
 using AnnotationFont = Plotly.Blazor.LayoutLib.AnnotationLib.Font;
 using AxisTitle = Plotly.Blazor.LayoutLib.YAxisLib.Title;
 using MarkerSymbol = Plotly.Blazor.Traces.ScatterLib.MarkerLib.SymbolEnum;
-using XAxisTitle = Plotly.Blazor.LayoutLib.XAxisLib.Title;
 
 namespace LoopShaper.Web.Model.Charts;
 
@@ -91,8 +90,8 @@ public static class BodeFigure
             visible.Add(measured.Measured);
         }
 
-        var magRange = MagnitudeRange(visible.SelectMany(r => r.MagnitudeDb));
-        var phaseRange = PhaseRange(visible.SelectMany(r => r.PhaseDeg));
+        var magRange = BodeAxes.MagnitudeRange(visible.SelectMany(r => r.MagnitudeDb));
+        var phaseRange = BodeAxes.PhaseRange(visible.SelectMany(r => r.PhaseDeg));
 
         // Gain crossovers: a dashed line through both panels, a dot at 0 dB and the phase margin beside the phase.
         var fcs = margins.GainCrossovers.Select(g => g.FrequencyHz).ToArray();
@@ -367,26 +366,9 @@ public static class BodeFigure
         Font = new AnnotationFont { Color = ChartPalette.Ink, Size = ChartPalette.FontSize },
     };
 
-    private static (double Min, double Max) MagnitudeRange(IEnumerable<double> db)
-    {
-        var (min, max) = ChartNumbers.Extent(db, -60, 60);
-        max = Math.Ceiling((max + 5) / 20) * 20;
-        min = Math.Max(Math.Floor((min - 5) / 20) * 20, max - 200);
-        return (Math.Min(min, -20), Math.Max(max, 20));
-    }
-
-    private static (double Min, double Max) PhaseRange(IEnumerable<double> deg)
-    {
-        var (min, max) = ChartNumbers.Extent(deg, -270, 0);
-        min = Math.Floor(Math.Min(min, -180) / 45) * 45 - 15;
-        max = Math.Ceiling(Math.Max(max, 0) / 45) * 45 + 15;
-        return (min, max);
-    }
-
     private static Layout BaseLayout((double Min, double Max) mag, (double Min, double Max) phase, List<Annotation> annotations, List<Shape> shapes, DesignAnalysis analysis)
     {
         var a = analysis.Design.Analysis;
-        bool rangeOk = double.IsFinite(a.StartHz) && double.IsFinite(a.StopHz) && a.StartHz > 0 && a.StopHz > a.StartHz;
         return new Layout
         {
             Font = new Font { Family = ChartPalette.FontFamily, Size = ChartPalette.FontSize, Color = ChartPalette.Ink },
@@ -397,22 +379,7 @@ public static class BodeFigure
             Legend = [new Legend { Orientation = Plotly.Blazor.LayoutLib.LegendLib.OrientationEnum.H, X = 0m, Y = 1.09m, ItemClick = Plotly.Blazor.LayoutLib.LegendLib.ItemClickEnum.False, ItemDoubleClick = Plotly.Blazor.LayoutLib.LegendLib.ItemDoubleClickEnum.False, Font = new Plotly.Blazor.LayoutLib.LegendLib.Font { Size = 13 } }],
             HoverMode = HoverModeEnum.Closest,
             UiRevision = "bode",
-            XAxis =
-            [
-                new XAxis
-                {
-                    Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log,
-                    Title = new XAxisTitle { Text = "frequency (Hz)" },
-                    ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI,
-                    Range = rangeOk ? [Math.Log10(a.StartHz), Math.Log10(a.StopHz)] : null,
-                    Anchor = "y2",
-                    GridColor = ChartPalette.Grid,
-                    ShowLine = true,
-                    LineColor = ChartPalette.Ink,
-                    Mirror = Plotly.Blazor.LayoutLib.XAxisLib.MirrorEnum.True,
-                    Ticks = Plotly.Blazor.LayoutLib.XAxisLib.TicksEnum.Outside,
-                },
-            ],
+            XAxis = [BodeAxes.Frequency(a.StartHz, a.StopHz)],
             YAxis =
             [
                 new YAxis

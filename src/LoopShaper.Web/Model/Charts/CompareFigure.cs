@@ -30,23 +30,8 @@ public static class CompareFigure
         AddLoop(data, b, labelB, ColorB, "dash");
         double start = Math.Min(a.Design.Analysis.StartHz, b.Design.Analysis.StartHz);
         double stop = Math.Max(a.Design.Analysis.StopHz, b.Design.Analysis.StopHz);
-        bool rangeOk = double.IsFinite(start) && double.IsFinite(stop) && start > 0 && stop > start;
         var layout = Base();
-        layout.XAxis =
-        [
-            new XAxis
-            {
-                Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log,
-                Title = new XAxisTitle { Text = "frequency (Hz)" },
-                ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI,
-                Range = rangeOk ? [Math.Log10(start), Math.Log10(stop)] : null,
-                Anchor = "y2",
-                GridColor = ChartPalette.Grid,
-                ShowLine = true,
-                LineColor = ChartPalette.Ink,
-                Mirror = Plotly.Blazor.LayoutLib.XAxisLib.MirrorEnum.True,
-            },
-        ];
+        layout.XAxis = [BodeAxes.Frequency(start, stop)];
         layout.YAxis =
         [
             new YAxis { Title = new YAxisTitle { Text = "|T| (dB)" }, Domain = [0.53m, 1m], GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = ChartPalette.Ink },

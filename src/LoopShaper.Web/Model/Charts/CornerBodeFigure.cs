@@ -5,7 +5,6 @@ using Plotly.Blazor.LayoutLib;
 using Plotly.Blazor.Traces;
 using Plotly.Blazor.Traces.ScatterLib;
 using AxisTitle = Plotly.Blazor.LayoutLib.YAxisLib.Title;
-using XAxisTitle = Plotly.Blazor.LayoutLib.XAxisLib.Title;
 
 namespace LoopShaper.Web.Model.Charts;
 
@@ -52,12 +51,8 @@ public static class CornerBodeFigure
             phases.AddRange(response.PhaseDeg);
         }
 
-        var (magMin, magMax) = ChartNumbers.Extent(magnitudes, -60, 60);
-        var (phMin, phMax) = ChartNumbers.Extent(phases, -270, 0);
-        double top = Math.Ceiling((magMax + 5) / 20) * 20;
-        double bottom = Math.Max(Math.Floor((magMin - 5) / 20) * 20, top - 200);
-        double phLo = (Math.Floor(Math.Min(phMin, -180) / 45) * 45) - 15, phHi = (Math.Ceiling(Math.Max(phMax, 0) / 45) * 45) + 15;
-        bool rangeOk = double.IsFinite(startHz) && double.IsFinite(stopHz) && startHz > 0 && stopHz > startHz;
+        var mag = BodeAxes.MagnitudeRange(magnitudes);
+        var phase = BodeAxes.PhaseRange(phases);
         var layout = new Layout
         {
             Font = new Font { Family = ChartPalette.FontFamily, Size = ChartPalette.FontSize, Color = ChartPalette.Ink },
@@ -68,26 +63,11 @@ public static class CornerBodeFigure
             Legend = [new Legend { Orientation = Plotly.Blazor.LayoutLib.LegendLib.OrientationEnum.H, X = 0m, Y = 1.1m, ItemDoubleClick = Plotly.Blazor.LayoutLib.LegendLib.ItemDoubleClickEnum.False, Font = new Plotly.Blazor.LayoutLib.LegendLib.Font { Size = 13 } }],
             HoverMode = HoverModeEnum.Closest,
             UiRevision = "corner-bode",
-            XAxis =
-            [
-                new XAxis
-                {
-                    Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log,
-                    Title = new XAxisTitle { Text = "frequency (Hz)" },
-                    ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI,
-                    Range = rangeOk ? [Math.Log10(startHz), Math.Log10(stopHz)] : null,
-                    Anchor = "y2",
-                    GridColor = ChartPalette.Grid,
-                    ShowLine = true,
-                    LineColor = ChartPalette.Ink,
-                    Mirror = Plotly.Blazor.LayoutLib.XAxisLib.MirrorEnum.True,
-                    Ticks = Plotly.Blazor.LayoutLib.XAxisLib.TicksEnum.Outside,
-                },
-            ],
+            XAxis = [BodeAxes.Frequency(startHz, stopHz)],
             YAxis =
             [
-                new YAxis { Title = new AxisTitle { Text = "magnitude (dB)" }, Domain = [0.53m, 1m], Range = [Math.Min(bottom, -20), Math.Max(top, 20)], DTick = 20, GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
-                new YAxis { Title = new AxisTitle { Text = "phase (deg)" }, Domain = [0m, 0.47m], Range = [phLo, phHi], DTick = 45, GridColor = ChartPalette.Grid, ZeroLine = false, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+                new YAxis { Title = new AxisTitle { Text = "magnitude (dB)" }, Domain = [0.53m, 1m], Range = [mag.Min, mag.Max], DTick = 20, GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+                new YAxis { Title = new AxisTitle { Text = "phase (deg)" }, Domain = [0m, 0.47m], Range = [phase.Min, phase.Max], DTick = 45, GridColor = ChartPalette.Grid, ZeroLine = false, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
             ],
             Shapes =
             [
