@@ -1,6 +1,4 @@
 using System.CommandLine;
-using LoopShaper.Core.Corners;
-using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Reporting;
 
 namespace LoopShaper.Cli;
@@ -26,16 +24,14 @@ internal static class AnalyzeCommand
                 return ExitCodes.InvalidInput;
             }
 
-            var report = AnalysisReport.From(analysis);
-            CornerTable? corners = analysis.IsValid && analysis.Design.Plant is BuckPlant ? CornerSweep.Run(analysis.Design, new CornerSweepOptions(IncludeResponses: false)) : null;
-            report = report with { CornerTable = corners is null ? null : CornerTableReport.From(corners) };
+            var report = AnalysisReport.WithCorners(analysis);
             string text = parse.GetValue(format) == "json" ? AnalysisReportJson.Write(report) : AnalysisReportText.Write(report);
             if (!DesignLoader.Emit(text, parse.GetValue(outFile), output, error))
             {
                 return ExitCodes.InvalidInput;
             }
 
-            return report.MeetsCriteria && corners?.AllPass != false ? ExitCodes.Success : ExitCodes.CriteriaNotMet;
+            return report.MeetsCriteria && report.CornerTable?.AllPass != false ? ExitCodes.Success : ExitCodes.CriteriaNotMet;
         });
         return command;
     }

@@ -83,7 +83,7 @@ public static class AnalyzeApiEndpoints
             return BadRequest([.. analysis.Issues.Select(IssueReport.From).Select(ApiError.From)]);
         }
 
-        return Results.Text(AnalysisReportJson.Write(AnalysisReport.From(analysis)), "application/json", Encoding.UTF8);
+        return Results.Text(AnalysisReportJson.Write(AnalysisReport.WithCorners(analysis)), "application/json", Encoding.UTF8);
     }
 
     private static async Task<byte[]> ReadBoundedAsync(Stream body, int most, CancellationToken cancel)

@@ -85,6 +85,23 @@ public sealed record AnalysisReport
     /// <summary>The notice every report carries (<see cref="DesignAnalysis.SafetyNotice"/>).</summary>
     public string SafetyNotice { get; init; } = DesignAnalysis.SafetyNotice;
 
+    /// <summary>
+    /// The report of an analysis with its corner table (<see cref="LoopShaper.Core.Corners.CornerSweep"/>, no responses kept) for a
+    /// valid power-stage design; the table is null otherwise. What `analyze` and the HTTP API both return.
+    /// </summary>
+    public static AnalysisReport WithCorners(DesignAnalysis analysis)
+    {
+        ArgumentNullException.ThrowIfNull(analysis);
+        var report = From(analysis);
+        if (!analysis.IsValid || analysis.Design.Plant is not BuckPlant)
+        {
+            return report;
+        }
+
+        var table = LoopShaper.Core.Corners.CornerSweep.Run(analysis.Design, new LoopShaper.Core.Corners.CornerSweepOptions(IncludeResponses: false));
+        return report with { CornerTable = CornerTableReport.From(table) };
+    }
+
     /// <summary>The report of an analysis.</summary>
     public static AnalysisReport From(DesignAnalysis analysis)
     {
