@@ -1,8 +1,8 @@
 using System.Collections.Immutable;
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
-using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Exports;
+using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Reporting;
 using LoopShaper.Core.Synthesis;
 using LoopShaper.Core.Validation;
