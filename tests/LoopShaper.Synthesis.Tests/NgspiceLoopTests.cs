@@ -51,6 +51,42 @@ public class NgspiceLoopTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void Peak_current_mode_in_DCM_is_realised_too()
+    {
+        // The peak current-mode example with a diode rectifier (0.4 V, our own numbers) analysed at a 50 mA minimum load:
+        // below the CCM/DCM boundary, so the analysis uses the DCM model with the peak-current duty-cycle law.
+        var (design, network) = Load("pol-12v-to-3v3-peak-current-mode.json");
+        var buck = (BuckPlant)design.Plant;
+        var stage = buck.PowerStage with { Rectifier = Rectifier.Diode(0.4, 0.0), LoadCurrent = new CurrentRange(0.05, buck.PowerStage.LoadCurrent.MaxA) };
+        design = design with { Plant = buck with { PowerStage = stage }, Analysis = design.Analysis with { Load = LoadCorner.Min } };
+        var built = DesignAnalyzer.BuildLoop(design);
+        Assert.Equal(SmallSignalModel.PeakCurrentModeDiscontinuous, built.Model);
+        string netlist = SpiceNetlist.Loop(design, network, new SpiceSweep(4, 10, 1e6));
+        Assert.StartsWith("* LoopShaper loop netlist: state-space realisation of the peak current-mode DCM plant", netlist, StringComparison.Ordinal);
+        var (db, deg) = MaxDifference(built.Loop.LoopGain, Ngspice.RunAc(netlist, "v(t)"));
+        output.WriteLine($"PCM in DCM: max |dB| {db:E2}, max |deg| {deg:E2}");
+        Assert.True(db <= MagnitudeToleranceDb, $"{db} dB");
+        Assert.True(deg <= PhaseToleranceDeg, $"{deg} deg");
+    }
+
+    [Fact]
+    public void Voltage_mode_CCM_with_an_ota_is_the_averaged_circuit_with_the_divider()
+    {
+        // The test buck (TestPlants, 10 k / 10 k divider) with an OTA Type II network of our own (gm 1 mS, Ro 5 MOhm):
+        // the averaged CCM circuit (Erickson & Maksimovic 2nd ed., sec. 7.2), the divider Rtop, Rbot ahead of the OTA.
+        // The divider's 20 kOhm loads the output in the circuit and not in the core: 1e-5 relative against the 0.2 Ohm load.
+        var ota = new TransconductanceNetwork(CompensatorType.TypeII, new Transconductance(1e-3, 5e6), C1F: 2.2e-9, R2Ohm: 4.7e3, C2F: 68e-12);
+        var design = TestPlants.Buck(ota);
+        string netlist = SpiceNetlist.Loop(design);
+        Assert.StartsWith("* LoopShaper averaged small-signal loop: voltage-mode CCM buck with a Type II OTA compensator", netlist, StringComparison.Ordinal);
+        Assert.Contains("Rtop out fb 10000", netlist, StringComparison.Ordinal);
+        var (db, deg) = MaxDifference(DesignAnalyzer.BuildLoop(design).Loop.LoopGain, Ngspice.RunAc(netlist, "v(t)"));
+        output.WriteLine($"VM CCM with an OTA: max |dB| {db:E2}, max |deg| {deg:E2}");
+        Assert.True(db <= MagnitudeToleranceDb, $"{db} dB");
+        Assert.True(deg <= PhaseToleranceDeg, $"{deg} deg");
+    }
+
+    [Fact]
     public void Voltage_mode_CCM_keeps_the_averaged_circuit_and_a_delay_becomes_a_line()
     {
         var n = NgspiceExportTests.Network(CompensatorType.TypeIII);
@@ -66,6 +102,26 @@ public class NgspiceLoopTests(ITestOutputHelper output)
         var placement = new CompensatorPlacement(CompensatorType.TypeII, new GainSetting(GainSettingKind.IntegratorHz, 1e3), Zero1Hz: 1e3, Pole1Hz: 1e5);
         var ex = Assert.Throws<ArgumentException>(() => SpiceNetlist.StateSpaceLoop(custom with { Compensator = placement }));
         Assert.Contains("synthesise the parts first", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [MemberData(nameof(Examples))]
+    public void State_space_netlists_are_plain_SPICE3_with_unique_element_names(string file, SmallSignalModel model)
+    {
+        var (design, network) = Load(file);
+        string netlist = SpiceNetlist.Loop(design, network);
+        var lines = netlist.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.Equal(".end", lines[^1]);
+        Assert.Contains(lines, l => l.StartsWith("* model: ", StringComparison.Ordinal));
+        Assert.DoesNotContain(".control", netlist, StringComparison.Ordinal);
+        Assert.DoesNotContain("POLY", netlist, StringComparison.OrdinalIgnoreCase);
+        var elements = lines.Where(l => !l.StartsWith('*') && !l.StartsWith('.')).ToList();
+        // Only SPICE3 element letters: R, C, L, V, E, G, T; SPICE names are case-insensitive and must be unique.
+        Assert.All(elements, l => Assert.Contains(char.ToUpperInvariant(l[0]), "RCLVEGT"));
+        var names = elements.Select(l => l.Split(' ')[0].ToUpperInvariant()).ToList();
+        Assert.Equal(names.Count, names.Distinct(StringComparer.Ordinal).Count());
+        Assert.Equal(model, DesignAnalyzer.BuildLoop(design).Model);
+        Assert.Equal(DesignAnalyzer.BuildLoop(design).Loop.Plant.HasDelay, netlist.Contains("Txd ", StringComparison.Ordinal));
     }
 
     /// <summary>A committed example with its compensator as parts: as given, or synthesised from its placement.</summary>

@@ -216,7 +216,7 @@ public static class SpiceNetlist
         {
             var sec = sections[k];
             double w0 = sec.ScaleRadPerS;
-            w.Comment(string.Create(inv, $"section {k + 1}: order {sec.Order}, w0 = {w0:G6} rad/s, s' = s / w0, den s'^{sec.Order} + {string.Join(" + ", sec.DenominatorAscending.Select((a, i) => $"{a:G6} s'^{i}"))}, num {string.Join(" + ", sec.NumeratorAscending.Select((b, i) => $"{b:G6} s'^{i}"))}"));
+            w.Comment(string.Create(inv, $"section {k + 1}: order {sec.Order}, w0 = {w0:G6} rad/s, H(s') = ({Polynomial(sec.NumeratorAscending)}) / ({Polynomial([.. sec.DenominatorAscending, 1.0])}), s' = s / w0"));
             var x = new string[sec.Order];
             for (int i = 0; i < sec.Order; i++)
             {
@@ -340,6 +340,25 @@ public static class SpiceNetlist
         w.Line($"Txd xd2 0 xd 0 Z0={N(DelayLineOhm)} TD={N(td)}");
         w.Line($"Rxd2 xd 0 {N(DelayLineOhm)}");
         return "xd";
+    }
+
+    /// <summary>A polynomial in s' from its ascending coefficients, highest power first, zero terms left out.</summary>
+    private static string Polynomial(IReadOnlyList<double> ascending)
+    {
+        var terms = new List<string>();
+        for (int i = ascending.Count - 1; i >= 0; i--)
+        {
+            double c = ascending[i];
+            if (c == 0)
+            {
+                continue;
+            }
+
+            string power = i switch { 0 => "", 1 => " s'", _ => $" s'^{i}" };
+            terms.Add(c.ToString("G6", CultureInfo.InvariantCulture) + power);
+        }
+
+        return terms.Count == 0 ? "0" : string.Join(" + ", terms).Replace("+ -", "- ", StringComparison.Ordinal);
     }
 
     private static string DescribeCompensator(Compensator n) => n switch
