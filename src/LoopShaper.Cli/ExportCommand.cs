@@ -61,10 +61,10 @@ internal static class ExportCommand
                     return ExitCodes.InvalidInput;
                 }
 
-                string otaText = wantParts ? PartsListCsv.Write(ota.Synthesis)
-                    : wantLoop ? SpiceNetlist.Loop(ota.BuiltDesign, ota.Synthesis.SnappedNetwork)
+                string? otaText = wantParts ? PartsListCsv.Write(ota.Synthesis)
+                    : wantLoop ? LoopNetlist(ota.BuiltDesign, ota.Synthesis.SnappedNetwork, path, error)
                     : SpiceNetlist.Compensator(ota.Synthesis.SnappedNetwork, divider!, design.Name);
-                return DesignLoader.Emit(otaText, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
+                return otaText is not null && DesignLoader.Emit(otaText, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
             }
 
             OpAmpNetwork network;
@@ -85,11 +85,25 @@ internal static class ExportCommand
                 return ExitCodes.InvalidInput;
             }
 
-            string text = wantParts
+            string? text = wantParts
                 ? synthesised is not null ? PartsListCsv.Write(synthesised) : PartsListCsv.Write(NetworkPartsList.Of(network, options))
-                : wantLoop ? SpiceNetlist.Loop(design, network) : SpiceNetlist.Compensator(network, design.Name);
-            return DesignLoader.Emit(text, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
+                : wantLoop ? LoopNetlist(design, network, path, error) : SpiceNetlist.Compensator(network, design.Name);
+            return text is not null && DesignLoader.Emit(text, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
         });
         return command;
+    }
+
+    /// <summary>The loop netlist (<see cref="SpiceNetlist.Loop"/>); null after writing why the loop could not be built.</summary>
+    private static string? LoopNetlist(Core.Design.LoopDesign design, Compensator network, string path, TextWriter error)
+    {
+        try
+        {
+            return SpiceNetlist.Loop(design, network);
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+        {
+            error.WriteLine($"{path}: error: $: the loop netlist could not be written: {ex.Message.Split(" (Parameter")[0]}");
+            return null;
+        }
     }
 }

@@ -14,8 +14,4 @@ public static class AveragedLoopSupport
     /// <summary>True when the design's analysis uses the voltage-mode CCM model, so the loop netlist is the averaged power-stage circuit.</summary>
     public static bool UsesAveragedCircuit(LoopDesign design)
         => design.Plant is BuckPlant { Control: VoltageModeControl } && DesignAnalyzer.BuildLoop(design).Model == SmallSignalModel.VoltageModeContinuous;
-
-    /// <summary>A short description of the loop netlist's model, for headers and the workspace.</summary>
-    public static string Describe(LoopDesign design)
-        => UsesAveragedCircuit(design) ? "averaged CCM circuit of the voltage-mode buck" : "state-space realisation of the analysed plant transfer function";
 }
