@@ -7,8 +7,8 @@ using LoopShaper.Core.Validation;
 namespace LoopShaper.Cli;
 
 /// <summary>
-/// `export FILE --netlist [--loop] | --parts [--out FILE]`: the compensator's SPICE netlist, the averaged loop's, or
-/// the parts list CSV. A design given by parts is exported as it is; a placement is synthesised first (as `synthesize`).
+/// `export FILE --netlist [--loop] | --parts [--out FILE]`: the compensator's SPICE netlist, the loop's (averaged
+/// circuit or state-space realisation of the analysed plant, <see cref="SpiceNetlist.Loop"/>), or the parts list CSV. A design given by parts is exported as it is; a placement is synthesised first (as `synthesize`).
 /// </summary>
 internal static class ExportCommand
 {
@@ -16,11 +16,11 @@ internal static class ExportCommand
     {
         var file = new Argument<string>("file") { Description = "Design file (docs/design-file.md)." };
         var netlist = new Option<bool>("--netlist") { Description = "Write the SPICE3 netlist of the compensator network (AC analysis, ngspice -b)." };
-        var loop = new Option<bool>("--loop") { Description = "With --netlist: the averaged small-signal loop of the buck instead, loop gain v(t)." };
+        var loop = new Option<bool>("--loop") { Description = "With --netlist: the small-signal loop instead, loop gain v(t): the averaged circuit for voltage-mode CCM, a state-space realisation of the analysed plant for peak current mode, DCM and custom plants." };
         var parts = new Option<bool>("--parts") { Description = "Write the parts list as CSV: designator, value, unit, display, series, tolerance, role." };
         var outFile = new Option<string?>("--out", "-o") { Description = "Write to this file instead of the standard output." };
         var synthesis = new SynthesisCommandLine();
-        var command = new Command("export", "Export the compensator: its SPICE netlist (--netlist), the averaged loop's (--netlist --loop) or the parts list CSV (--parts). A placement is synthesised into standard parts first. Exit code 0 when written, 2 for invalid input.")
+        var command = new Command("export", "Export the compensator: its SPICE netlist (--netlist), the loop's (--netlist --loop) or the parts list CSV (--parts). A placement is synthesised into standard parts first. Exit code 0 when written, 2 for invalid input.")
         {
             file, netlist, loop, parts, outFile,
         };
@@ -37,7 +37,7 @@ internal static class ExportCommand
 
             if (wantLoop && !wantNetlist)
             {
-                error.WriteLine("error: --loop: goes with --netlist (the averaged loop's netlist), not with --parts.");
+                error.WriteLine("error: --loop: goes with --netlist (the loop's netlist), not with --parts.");
                 return ExitCodes.InvalidInput;
             }
 
@@ -46,20 +46,8 @@ internal static class ExportCommand
                 return ExitCodes.InvalidInput;
             }
 
-            if (wantLoop && AveragedLoopSupport.ReasonAgainst(design) is { } against)
-            {
-                DesignLoader.ReportAll(error, path, [against]);
-                return ExitCodes.InvalidInput;
-            }
-
             if (design.Compensator is TransconductanceNetwork)
             {
-                if (wantLoop)
-                {
-                    error.WriteLine($"{path}: error: $.compensator.form: the averaged-loop netlist is written for an op-amp compensator; export the OTA network with --netlist alone.");
-                    return ExitCodes.InvalidInput;
-                }
-
                 if (!DesignSynthesizer.TrySynthesizeOta(design, options, out var ota, out var otaIssues))
                 {
                     DesignLoader.ReportAll(error, path, otaIssues.Where(i => i.Severity == Severity.Error));
@@ -67,14 +55,16 @@ internal static class ExportCommand
                 }
 
                 var divider = ota!.BuiltDesign.Plant is Core.PlantModels.BuckPlant b ? b.Feedback : null;
-                if (wantNetlist && divider is null)
+                if (wantNetlist && !wantLoop && divider is null)
                 {
                     error.WriteLine($"{path}: error: $.plant: the OTA netlist needs the buck's feedback divider; a custom plant has none.");
                     return ExitCodes.InvalidInput;
                 }
 
-                string otaText = wantParts ? PartsListCsv.Write(ota.Synthesis) : SpiceNetlist.Compensator(ota.Synthesis.SnappedNetwork, divider!, design.Name);
-                return DesignLoader.Emit(otaText, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
+                string? otaText = wantParts ? PartsListCsv.Write(ota.Synthesis)
+                    : wantLoop ? LoopNetlist(ota.BuiltDesign, ota.Synthesis.SnappedNetwork, path, error)
+                    : SpiceNetlist.Compensator(ota.Synthesis.SnappedNetwork, divider!, design.Name);
+                return otaText is not null && DesignLoader.Emit(otaText, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
             }
 
             OpAmpNetwork network;
@@ -95,11 +85,25 @@ internal static class ExportCommand
                 return ExitCodes.InvalidInput;
             }
 
-            string text = wantParts
+            string? text = wantParts
                 ? synthesised is not null ? PartsListCsv.Write(synthesised) : PartsListCsv.Write(NetworkPartsList.Of(network, options))
-                : wantLoop ? SpiceNetlist.AveragedLoop(design, network) : SpiceNetlist.Compensator(network, design.Name);
-            return DesignLoader.Emit(text, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
+                : wantLoop ? LoopNetlist(design, network, path, error) : SpiceNetlist.Compensator(network, design.Name);
+            return text is not null && DesignLoader.Emit(text, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
         });
         return command;
+    }
+
+    /// <summary>The loop netlist (<see cref="SpiceNetlist.Loop"/>); null after writing why the loop could not be built.</summary>
+    private static string? LoopNetlist(Core.Design.LoopDesign design, Compensator network, string path, TextWriter error)
+    {
+        try
+        {
+            return SpiceNetlist.Loop(design, network);
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
+        {
+            error.WriteLine($"{path}: error: $: the loop netlist could not be written: {ex.Message.Split(" (Parameter")[0]}");
+            return null;
+        }
     }
 }

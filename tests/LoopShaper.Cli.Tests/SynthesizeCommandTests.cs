@@ -2,6 +2,7 @@ using System.Text.Json;
 using System.Text.Json.Nodes;
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
+using LoopShaper.Core.Exports;
 using LoopShaper.Core.Synthesis;
 
 namespace LoopShaper.Cli.Tests;
@@ -169,6 +170,39 @@ public class SynthesizeCommandTests
     }
 
     [Fact]
+    public async Task Search_steps_set_the_width_of_the_neighbour_search()
+    {
+        // The search scores every combination of +-N preferred-value steps of each free part (R1 and R4 fixed):
+        // (2N + 1)^m combinations for m free parts, so N = 1 and N = 3 give 3^m and 7^m with the same m.
+        string example = RepoFiles.Example("usb-5v-to-3v3-diode.json");
+        using var one = await Json("synthesize", example, "--search-steps", "1");
+        using var three = await Json("synthesize", example, "--search-steps", "3");
+        Assert.Equal(1, one.RootElement.GetProperty("searchSteps").GetInt32());
+        Assert.Equal(3, three.RootElement.GetProperty("searchSteps").GetInt32());
+        int c1 = one.RootElement.GetProperty("searchCandidates").GetInt32(), c3 = three.RootElement.GetProperty("searchCandidates").GetInt32();
+        int m = (int)Math.Round(Math.Log(c1) / Math.Log(3));
+        Assert.InRange(m, 1, 6);
+        Assert.Equal((int)Math.Pow(3, m), c1);
+        Assert.Equal((int)Math.Pow(7, m), c3);
+
+        // The same option on export steers the parts it writes; the design file's synthesis.searchSteps is the default.
+        var exported = await CliRun.Of("export", example, "--parts", "--search-steps", "1");
+        Assert.Equal(0, exported.ExitCode);
+        var parts = PartsListCsv.Parse(exported.Output).ToDictionary(p => p.Designator);
+        foreach (var p in one.RootElement.GetProperty("parts").EnumerateArray())
+        {
+            Assert.Equal(p.GetProperty("chosenValue").GetDouble(), parts[p.GetProperty("designator").GetString()!].Value, 1e-9 * p.GetProperty("chosenValue").GetDouble());
+        }
+
+        var j = JsonNode.Parse(File.ReadAllText(example))!;
+        j["version"] = 2;
+        j["synthesis"] = new JsonObject { ["searchSteps"] = 1 };
+        using var file = new TempFile("steps.json", j.ToJsonString());
+        using var fromFile = await Json("synthesize", file.Path);
+        Assert.Equal(c1, fromFile.RootElement.GetProperty("searchCandidates").GetInt32());
+    }
+
+    [Fact]
     public async Task Impractical_values_are_warned()
     {
         // The 72 V rail's 140 kOhm R1 leaves C2 at 2.84 pF, below 10 pF (common practice, no source).
@@ -195,6 +229,10 @@ public class SynthesizeCommandTests
     [InlineData("--r1", "10q", "error: --r1: '10q' has an unknown prefix or a unit other than Ohm; allowed prefixes p n u m k M G.")]
     [InlineData("--r1", "10 kHz", "error: --r1: '10 kHz' has an unknown prefix or a unit other than Ohm; allowed prefixes p n u m k M G.")]
     [InlineData("--r1", "2G", "error: --r1: 2.00 GOhm is out of range: allowed 1.00 Ohm to 1.00 GOhm.")]
+    [InlineData("--search-steps", "0", "error: --search-steps: 0 is out of range: allowed 1 to 3.")]
+    [InlineData("--search-steps", "4", "error: --search-steps: 4 is out of range: allowed 1 to 3.")]
+    [InlineData("--search-steps", "two", "error: --search-steps: 'two' is not a whole number: allowed 1 to 3.")]
+    [InlineData("--search-steps", "1.5", "error: --search-steps: '1.5' is not a whole number: allowed 1 to 3.")]
     public async Task Bad_option_values_are_exit_code_2_with_the_option_named(string option, string value, string message)
     {
         var run = await CliRun.Of("synthesize", RepoFiles.Example("usb-5v-to-3v3-diode.json"), option, value);

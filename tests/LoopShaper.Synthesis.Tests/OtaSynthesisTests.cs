@@ -1,3 +1,4 @@
+using LoopShaper.Core.Analysis;
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Exports;
 using LoopShaper.Core.Synthesis;
@@ -34,6 +35,38 @@ public class OtaSynthesisTests
         Assert.Equal(plain.R2Ohm, r.IdealNetwork.R2Ohm, 1e-9 * plain.R2Ohm);
         Assert.Equal(plain.C1F, r.IdealNetwork.C1F, 1e-9 * plain.C1F);
         Assert.Equal(plain.C2F, r.IdealNetwork.C2F, 1e-9 * plain.C2F);
+    }
+
+    /// <summary>Targets of our own for the current-mode stand-in plant: crossover Hz, phase margin deg, OTA output resistance Ohm.</summary>
+    public static TheoryData<double, double, double> Targets => new()
+    {
+        { 30e3, 60.0, 5e6 },
+        { 20e3, 70.0, 5e6 },
+        { 50e3, 50.0, 1e9 },
+    };
+
+    [Theory]
+    [MemberData(nameof(Targets))]
+    public void Ideal_parts_put_crossover_and_phase_margin_on_target(double fc, double pm, double roOhm)
+    {
+        // Venable's K factor for Type II (Venable 1983) on the peak current-mode stand-in plant (TestPlants), then R2,
+        // C1, C2 with gm = 1 mS fixed; the loop of the ideal parts, Ro included, analysed independently of the synthesis.
+        var plant = TestPlants.CurrentModePlant();
+        var s = PlacementAdvisor.Suggest(plant, new PlacementRequest(PlacementMethod.KFactor, fc, pm, CompensatorType.TypeII, 600e3));
+        var ota = new Transconductance(1e-3, roOhm);
+        var r = OtaNetworkSynthesizer.Synthesize(plant, s.Placement, ota, new SynthesisOptions { StopHz = 10e6 });
+        Assert.Equal(CompensatorType.TypeII, r.IdealNetwork.Type);
+
+        // The synthesis inverts the placement with Ro infinite; a finite Ro (5 MOhm) moves the crossover by about 1e-4
+        // relative and the phase margin by under 0.02 deg here (1e-7 and 1e-4 deg with 1 GOhm), inside the tolerances.
+        var m = MarginAnalyzer.Analyze(r.IdealNetwork.TransferFunction().Multiply(plant), 10, 10e6);
+        Assert.Equal(fc, m.CrossoverHz!.Value, fc * 1e-3);
+        Assert.Equal(pm, m.PhaseMarginDeg!.Value, 0.1);
+        Assert.Equal(m.CrossoverHz.Value, r.Ideal.CrossoverHz!.Value, fc * 1e-9);
+        Assert.Equal(m.PhaseMarginDeg.Value, r.Ideal.PhaseMarginDeg!.Value, 1e-9);
+
+        // Snapping moves them (E96 / E12 steps): the snapped loop is analysed too, and is not the ideal one.
+        Assert.NotEqual(r.Ideal.PhaseMarginDeg.Value, r.Snapped.PhaseMarginDeg!.Value);
     }
 
     [Fact]

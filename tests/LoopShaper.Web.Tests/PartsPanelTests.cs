@@ -79,6 +79,54 @@ public sealed class PartsPanelTests : BunitContext
         Assert.StartsWith("* LoopShaper averaged small-signal loop", loop, StringComparison.Ordinal);
     }
 
+    /// <summary>docs/examples/pol-12v-to-3v3-peak-current-mode.json: peak current mode with an OTA Type II network (gm = 1 mS, Ro = 5 MOhm).</summary>
+    private static LoopDesign CurrentModeOta => DesignFile.Read(File.ReadAllText(Path.Combine(RepoRoot(), "docs", "examples", "pol-12v-to-3v3-peak-current-mode.json"))).Design!;
+
+    [Fact]
+    public async Task An_ota_compensator_gets_its_parts_anchored_on_gm_and_the_divider()
+    {
+        var (cut, workspace) = await RenderPanel(CurrentModeOta);
+        // gm and the divider anchor an OTA network: no R1 field, no neighbour search.
+        Assert.Empty(cut.FindAll("[data-search-neighbours]"));
+        Assert.DoesNotContain("R1 (empty: divider top)", cut.Markup, StringComparison.Ordinal);
+        await cut.Find("[data-choose-parts]").ClickAsync(new MouseEventArgs());
+        await cut.WaitForAssertionAsync(() => Assert.Equal("ready", cut.Find("[data-parts-panel]").GetAttribute("data-parts-panel")), TimeSpan.FromSeconds(20));
+        Assert.Empty(cut.FindAll("[data-parts-error]"));
+
+        // The same OTA synthesis run directly on the core.
+        Assert.True(DesignSynthesizer.TrySynthesizeOta(workspace.Form.Build(), DesignSynthesizer.OptionsOf(CurrentModeOta), out var expected, out _));
+        var s = expected!.Synthesis;
+        Assert.Equal(["R2", "C1", "C2"], cut.FindAll("[data-part]").Select(r => r.GetAttribute("data-part")!));
+        foreach (var p in s.Parts)
+        {
+            var row = cut.Find($"[data-part='{p.Designator}']");
+            Assert.Equal(Format(p.Value.IdealValue, p.Unit, 4), row.QuerySelector("[data-cell='ideal']")!.TextContent);
+            Assert.Equal(Format(p.Value.Value, p.Unit, 3), row.QuerySelector("[data-cell='snapped']")!.TextContent);
+            Assert.Equal(p.Value.Series.ToString(), row.QuerySelector("[data-cell='series']")!.TextContent);
+        }
+
+        // The example's own 22 kOhm is E24, not E96 (IEC 60063): E96's nearest is 22.1 kOhm; 3.3 nF and 47 pF are E12.
+        Assert.Equal("22.1 kOhm", cut.Find("[data-part='R2'] [data-cell='snapped']").TextContent);
+        Assert.Equal("3.30 nF", cut.Find("[data-part='C1'] [data-cell='snapped']").TextContent);
+        Assert.Equal("47.0 pF", cut.Find("[data-part='C2'] [data-cell='snapped']").TextContent);
+
+        // The anchor names gm and the divider; ideal against snapped loop, no searched column.
+        var anchor = cut.Find("[data-parts-anchor]");
+        Assert.Equal("gm", anchor.GetAttribute("data-parts-anchor"));
+        Assert.Contains("gm = 1.00 mS", anchor.TextContent, StringComparison.Ordinal);
+        Assert.Empty(cut.FindAll("[data-cell='chosen']"));
+        var crossover = cut.FindAll("[data-performance='crossover'] td").Select(c => c.TextContent).ToList();
+        Assert.Equal([Format(s.Ideal.CrossoverHz!.Value, "Hz"), Format(s.Snapped.CrossoverHz!.Value, "Hz")], crossover);
+
+        // Downloads: the parts list, the OTA network, and the loop as the state-space peak current-mode plant.
+        var entries = PartsListCsv.Parse(Decode(cut.Find("[data-download-parts]").GetAttribute("href")!, "text/csv"));
+        Assert.Equal(s.Parts.Select(p => (p.Designator, p.Value.Value)), entries.Select(e => (e.Designator, e.Value)));
+        var divider = ((Core.PlantModels.BuckPlant)expected.BuiltDesign.Plant).Feedback;
+        Assert.Equal(SpiceNetlist.Compensator(s.SnappedNetwork, divider, CurrentModeOta.Name), Decode(cut.Find("[data-download-netlist]").GetAttribute("href")!, "text/plain"));
+        string loop = Decode(cut.Find("[data-download-loop-netlist]").GetAttribute("href")!, "text/plain");
+        Assert.StartsWith("* LoopShaper loop netlist: state-space realisation of the peak current-mode CCM plant with a Type II OTA compensator", loop, StringComparison.Ordinal);
+    }
+
     [Fact]
     public async Task Changing_the_series_rechooses_the_parts_and_goes_into_the_design()
     {

@@ -55,6 +55,20 @@ public static class SpiceNetlist
     }
 
     /// <summary>
+    /// The small-signal loop the analysis uses, for an AC analysis with v(t) = T(s): the averaged circuit of the
+    /// voltage-mode CCM buck (<see cref="AveragedLoop"/>) where that is the analysed model, otherwise
+    /// <see cref="StateSpaceLoop"/> (peak current mode, an operating point analysed with the DCM model, a custom plant).
+    /// </summary>
+    /// <param name="design">The design.</param>
+    /// <param name="network">The compensator parts (op-amp or OTA network); null takes the design's own.</param>
+    /// <param name="sweep">The AC sweep.</param>
+    /// <param name="amplifierGain">Gain of an ideal amplifier's E source.</param>
+    public static string Loop(LoopDesign design, Compensator? network = null, SpiceSweep? sweep = null, double amplifierGain = DefaultAmplifierGain)
+        => AveragedLoopSupport.UsesAveragedCircuit(design)
+            ? AveragedLoop(design, network, sweep, amplifierGain)
+            : StateSpaceLoop(design, network, sweep, amplifierGain);
+
+    /// <summary>
     /// The averaged small-signal loop of a voltage-mode buck for an AC analysis, with the loop broken at the modulator
     /// input (an ideal high-impedance input, so breaking it loads nothing): a 1 V AC source v(x) drives the modulator
     /// and v(t) = -v(comp) / v(x) is the loop gain T(s) = Gc Fm Gvd with the inversion taken out (shared/CONVENTIONS.md).
@@ -63,23 +77,22 @@ public static class SpiceNetlist
     /// ESR and ESL, and the load. A modulator delay becomes a matched lossless line.
     /// </summary>
     /// <param name="design">A buck design.</param>
-    /// <param name="network">The compensator parts; null takes the design's own op-amp network.</param>
+    /// <param name="network">The compensator parts (op-amp or OTA network); null takes the design's own.</param>
     /// <param name="sweep">The AC sweep.</param>
     /// <param name="amplifierGain">Gain of the amplifier's E source.</param>
-    public static string AveragedLoop(LoopDesign design, OpAmpNetwork? network = null, SpiceSweep? sweep = null, double amplifierGain = DefaultAmplifierGain)
+    public static string AveragedLoop(LoopDesign design, Compensator? network = null, SpiceSweep? sweep = null, double amplifierGain = DefaultAmplifierGain)
     {
         if (design.Plant is not BuckPlant buck)
         {
-            throw new ArgumentException("The averaged-loop netlist is written for a buck power stage; a custom plant has no circuit to export.", nameof(design));
+            throw new ArgumentException("The averaged-loop circuit is written for a buck power stage; a custom plant has no circuit (use the state-space loop netlist).", nameof(design));
         }
 
         if (buck.Control is not VoltageModeControl control)
         {
-            throw new ArgumentException("The averaged-loop netlist is written for a voltage-mode buck; peak current mode has no such circuit here.", nameof(design));
+            throw new ArgumentException("The averaged-loop circuit is written for a voltage-mode buck; peak current mode has no such circuit here (use the state-space loop netlist).", nameof(design));
         }
 
-        var n = network ?? design.Compensator as OpAmpNetwork
-            ?? throw new ArgumentException("The design's compensator is a placement, not parts: synthesise the parts first and pass the network.", nameof(network));
+        var n = Parts(design, network);
         var s = Check(sweep, amplifierGain);
         var stage = buck.PowerStage;
         var at = DesignAnalyzer.ConditionOf(stage, design.Analysis);
@@ -91,25 +104,16 @@ public static class SpiceNetlist
         var inv = CultureInfo.InvariantCulture;
 
         var w = new Writer();
-        w.Comment($"LoopShaper averaged small-signal loop: voltage-mode CCM buck with a {Describe(n.Type)} op-amp compensator, for AC analysis");
+        w.Comment($"LoopShaper averaged small-signal loop: voltage-mode CCM buck with a {DescribeCompensator(n)}, for AC analysis");
         w.Comment($"design: {Clean(design.Name)}");
         w.Comment($"written by LoopShaper {Version()}; plain SPICE3, run with: ngspice -b this-file.cir");
+        w.Comment("model: the averaged CCM circuit of the power stage (Erickson and Maksimovic, 2nd ed., sec. 7.2)");
         w.Comment($"operating point: Vin = {Format(at.InputVoltageV, "V", 4)}, Iload = {Format(at.LoadCurrentA, "A", 4)}, D = {d.ToString("F5", inv)}, Veff = {Format(op.EffectiveInputVoltageV, "V", 5)}, Vm = {Format(vm, "V", 4)}");
         w.Comment("read: v(t) = T(s) = Gc Fm Gvd, the loop gain with the amplifier's inversion taken out (loop broken at the modulator input, v(x) = 1)");
         w.Comment("small-signal AC only: every DC level is left out; the line source Vline is 0 for the loop gain");
         w.Comment("injected control voltage at the modulator input (where the loop is broken)");
         w.Line("Vx x 0 DC 0 AC 1");
-        string modIn = "x";
-        if (td > 0)
-        {
-            w.Comment($"modulator delay {Format(td, "s", 4)}: line matched at both ends, v(xd) = v(x) exp(-s Td)");
-            w.Line("Exd xd1 0 x 0 2");
-            w.Line($"Rxd1 xd1 xd2 {N(DelayLineOhm)}");
-            w.Line($"Txd xd2 0 xd 0 Z0={N(DelayLineOhm)} TD={N(td)}");
-            w.Line($"Rxd2 xd 0 {N(DelayLineOhm)}");
-            modIn = "xd";
-        }
-
+        string modIn = DelayLines(w, "x", td);
         w.Comment("modulator Fm = 1 / Vm: v(d) is the duty-cycle perturbation (1 V = 100 %)");
         w.Line($"Emod d 0 {modIn} 0 {N(1.0 / vm)}");
         w.Comment("switch network: v(sw) = D vg + Veff d");
@@ -159,12 +163,228 @@ public static class SpiceNetlist
             w.Line($"Rload out 0 {N(rl)}");
         }
 
-        NetworkLines(w, n, "out", amplifierGain);
+        LoopCompensatorLines(w, n, buck.Feedback, buck.Feedback.Ratio, amplifierGain);
         w.Comment("loop gain: T = -v(comp) / v(x)");
         w.Line("Et t 0 comp 0 -1");
         Footer(w, s, "vdb(t) vp(t)");
         return w.ToString();
     }
+
+    /// <summary>
+    /// The loop for an AC analysis with the plant the analysis uses realised as a circuit of its transfer function, not
+    /// of the power stage: Fm Gvd from DesignAnalyzer.BuildLoop (peak current mode with Ridley's sampling terms, the DCM
+    /// model, or a custom plant) as a cascade of frequency-scaled state-space sections (<see cref="StateSpaceRealization"/>).
+    /// Each state is a node with a 1 F capacitor to ground, integrating the currents of VCCS of w0 times the section's
+    /// coefficients (C dv/dt = w0 (...)), and a 1e12 Ohm leak that gives the operating point a DC path (it moves each
+    /// pole by 1e-12 rad/s); each section's output is the sum of weighted state currents into 1 Ohm. A pure delay is a
+    /// matched lossless line (exact in AC analysis). The compensator parts follow around the chosen amplifier model, and
+    /// v(t) = -v(comp) / v(x) is T(s) with the inversion taken out.
+    /// </summary>
+    /// <param name="design">The design (any plant).</param>
+    /// <param name="network">The compensator parts (op-amp or OTA network); null takes the design's own.</param>
+    /// <param name="sweep">The AC sweep.</param>
+    /// <param name="amplifierGain">Gain of an ideal amplifier's E source.</param>
+    public static string StateSpaceLoop(LoopDesign design, Compensator? network = null, SpiceSweep? sweep = null, double amplifierGain = DefaultAmplifierGain)
+    {
+        var n = Parts(design, network);
+        var s = Check(sweep, amplifierGain);
+        var built = DesignAnalyzer.BuildLoop(design with { Compensator = n });
+        var plant = built.Loop.Modulator.Multiply(built.Loop.ControlToOutput);
+        var (sections, gain) = StateSpaceRealization.Realize(plant);
+        var inv = CultureInfo.InvariantCulture;
+
+        var w = new Writer();
+        w.Comment($"LoopShaper loop netlist: state-space realisation of the {DescribeModel(built.Model)} plant with a {DescribeCompensator(n)}, for AC analysis");
+        w.Comment($"design: {Clean(design.Name)}");
+        w.Comment($"written by LoopShaper {Version()}; plain SPICE3, run with: ngspice -b this-file.cir");
+        w.Comment($"model: {ModelSource(built.Model)}");
+        if (built.OperatingPoint is { } op)
+        {
+            w.Comment($"operating point: Vin = {Format(op.Condition.InputVoltageV, "V", 4)}, Iload = {Format(op.Condition.LoadCurrentA, "A", 4)}, D = {op.DutyCycle.ToString("F5", inv)}");
+        }
+
+        w.Comment("this is a circuit of the analysed transfer function, not of the power stage: nodes x1.. are states, not circuit voltages");
+        w.Comment($"plant Fm Gvd = {Clean(plant.WithoutDelay().ToString())}");
+        w.Comment(plant.HasDelay ? $"delay {Format(plant.DelayS, "s", 4)}: a matched lossless line, exact in AC analysis" : "no pure delay in the model");
+        w.Comment("read: v(t) = T(s) = Gc Fm Gvd H, the loop gain with the amplifier's inversion taken out (loop broken at the plant input, v(x) = 1)");
+        w.Comment("small-signal AC only: every DC level is left out");
+        w.Comment("injected control voltage at the plant input (where the loop is broken)");
+        w.Line("Vx x 0 DC 0 AC 1");
+        string u = DelayLines(w, "x", plant.DelayS);
+        int state = 0;
+        for (int k = 0; k < sections.Length; k++)
+        {
+            var sec = sections[k];
+            double w0 = sec.ScaleRadPerS;
+            w.Comment(string.Create(inv, $"section {k + 1}: order {sec.Order}, w0 = {w0:G6} rad/s, H(s') = ({Polynomial(sec.NumeratorAscending)}) / ({Polynomial([.. sec.DenominatorAscending, 1.0])}), s' = s / w0"));
+            var x = new string[sec.Order];
+            for (int i = 0; i < sec.Order; i++)
+            {
+                x[i] = $"x{++state}";
+                w.Line($"C{x[i]} {x[i]} 0 1");
+                w.Line($"R{x[i]} {x[i]} 0 1e12");
+            }
+
+            // Chain x_i' = w0 x_(i+1); the last state x_m' = w0 (-a0 x1 - ... - a_(m-1) x_m + u). "G 0 n c 0 g" drives g v(c) into n.
+            for (int i = 0; i + 1 < sec.Order; i++)
+            {
+                w.Line($"G{x[i]}c 0 {x[i]} {x[i + 1]} 0 {N(w0)}");
+            }
+
+            string last = x[^1];
+            for (int i = 0; i < sec.Order; i++)
+            {
+                if (sec.DenominatorAscending[i] != 0)
+                {
+                    w.Line($"G{last}a{i} 0 {last} {x[i]} 0 {N(-w0 * sec.DenominatorAscending[i])}");
+                }
+            }
+
+            w.Line($"G{last}u 0 {last} {u} 0 {N(w0)}");
+            string y = $"y{k + 1}";
+            w.Line($"R{y} {y} 0 1");
+            for (int i = 0; i < sec.Order; i++)
+            {
+                if (sec.OutputWeight(i) != 0)
+                {
+                    w.Line($"G{y}x{i + 1} 0 {y} {x[i]} 0 {N(sec.OutputWeight(i))}");
+                }
+            }
+
+            if (sec.Feedthrough != 0)
+            {
+                w.Line($"G{y}d 0 {y} {u} 0 {N(sec.Feedthrough)}");
+            }
+
+            u = y;
+        }
+
+        w.Comment("plant output: the gain K, buffered (the compensator's input resistor loads nothing)");
+        w.Line($"Eplant out 0 {u} 0 {N(gain)}");
+        double sense = built.Loop.SenseGain;
+        LoopCompensatorLines(w, n, design.Plant is BuckPlant b ? b.Feedback : null, sense, amplifierGain);
+        w.Comment("loop gain: T = -v(comp) / v(x)");
+        w.Line("Et t 0 comp 0 -1");
+        Footer(w, s, "vdb(t) vp(t)");
+        return w.ToString();
+    }
+
+    /// <summary>The compensator parts of the loop: the given network, or the design's own; an op-amp network without R4 gets the buck's divider bottom (as DesignAnalyzer.BuildLoop does).</summary>
+    private static Compensator Parts(LoopDesign design, Compensator? network)
+    {
+        var n = network ?? design.Compensator;
+        if (n is not (OpAmpNetwork or TransconductanceNetwork))
+        {
+            throw new ArgumentException("The design's compensator is a placement, not parts: synthesise the parts first and pass the network.", nameof(network));
+        }
+
+        return n is OpAmpNetwork { RBottomOhm: 0.0 } o && design.Plant is BuckPlant buck ? o with { RBottomOhm = buck.Feedback.BottomOhm } : n;
+    }
+
+    /// <summary>The compensator from node out (the converter output) to comp: an op-amp network, or the divider and an OTA network.</summary>
+    private static void LoopCompensatorLines(Writer w, Compensator n, FeedbackDivider? divider, double ratio, double gain)
+    {
+        if (n is OpAmpNetwork o)
+        {
+            NetworkLines(w, o, "out", gain);
+            return;
+        }
+
+        var t = (TransconductanceNetwork)n;
+        if (divider is not null)
+        {
+            w.Comment("feedback divider ahead of the OTA");
+            w.Line($"Rtop out fb {N(divider.TopOhm)}");
+            w.Line($"Rbot fb 0 {N(divider.BottomOhm)}");
+        }
+        else
+        {
+            w.Comment($"divider ratio Hdiv = {N(ratio)} of the custom plant, as a gain");
+            w.Line($"Ediv fb 0 out 0 {N(ratio)}");
+        }
+
+        OtaLines(w, t);
+    }
+
+    /// <summary>OTA: current gm (0 - v(fb)) into comp, Ro, and the network from comp to ground.</summary>
+    private static void OtaLines(Writer w, TransconductanceNetwork network)
+    {
+        var a = network.Amplifier;
+        w.Comment("OTA: current gm (0 - v(fb)) into comp (reference at AC ground), output resistance Ro");
+        w.Line($"Gota comp 0 fb 0 {N(a.TransconductanceS)}");
+        w.Line($"Ro comp 0 {N(a.OutputResistanceOhm)}");
+        w.Comment($"{Describe(network.Type)} network from comp to ground");
+        if (network.Type == CompensatorType.TypeI)
+        {
+            w.Line($"C1 comp 0 {N(network.C1F)}");
+        }
+        else
+        {
+            w.Line($"R2 comp n2 {N(network.R2Ohm)}");
+            w.Line($"C1 n2 0 {N(network.C1F)}");
+            w.Line($"C2 comp 0 {N(network.C2F)}");
+        }
+    }
+
+    /// <summary>A pure delay from <paramref name="input"/>: a line matched at both ends, v(xd) = v(input) exp(-s Td); returns the delayed node.</summary>
+    private static string DelayLines(Writer w, string input, double td)
+    {
+        if (!(td > 0))
+        {
+            return input;
+        }
+
+        w.Comment($"delay {Format(td, "s", 4)}: line matched at both ends, v(xd) = v({input}) exp(-s Td)");
+        w.Line($"Exd xd1 0 {input} 0 2");
+        w.Line($"Rxd1 xd1 xd2 {N(DelayLineOhm)}");
+        w.Line($"Txd xd2 0 xd 0 Z0={N(DelayLineOhm)} TD={N(td)}");
+        w.Line($"Rxd2 xd 0 {N(DelayLineOhm)}");
+        return "xd";
+    }
+
+    /// <summary>A polynomial in s' from its ascending coefficients, highest power first, zero terms left out.</summary>
+    private static string Polynomial(IReadOnlyList<double> ascending)
+    {
+        var terms = new List<string>();
+        for (int i = ascending.Count - 1; i >= 0; i--)
+        {
+            double c = ascending[i];
+            if (c == 0)
+            {
+                continue;
+            }
+
+            string power = i switch { 0 => "", 1 => " s'", _ => $" s'^{i}" };
+            terms.Add(c.ToString("G6", CultureInfo.InvariantCulture) + power);
+        }
+
+        return terms.Count == 0 ? "0" : string.Join(" + ", terms).Replace("+ -", "- ", StringComparison.Ordinal);
+    }
+
+    private static string DescribeCompensator(Compensator n) => n switch
+    {
+        OpAmpNetwork o => $"{Describe(o.Type)} op-amp compensator" + (o.Amplifier is OpAmp ? " (op-amp macro-model)" : " (ideal amplifier)"),
+        TransconductanceNetwork t => string.Create(CultureInfo.InvariantCulture, $"{Describe(t.Type)} OTA compensator (gm = {Format(t.Amplifier.TransconductanceS, "S", 4)}, Ro = {Format(t.Amplifier.OutputResistanceOhm, "Ohm", 4)})"),
+        _ => "compensator",
+    };
+
+    private static string DescribeModel(SmallSignalModel m) => m switch
+    {
+        SmallSignalModel.VoltageModeContinuous => "voltage-mode CCM",
+        SmallSignalModel.VoltageModeDiscontinuous => "voltage-mode DCM",
+        SmallSignalModel.PeakCurrentModeContinuous => "peak current-mode CCM",
+        SmallSignalModel.PeakCurrentModeDiscontinuous => "peak current-mode DCM",
+        _ => "custom",
+    };
+
+    private static string ModelSource(SmallSignalModel m) => m switch
+    {
+        SmallSignalModel.VoltageModeContinuous => "voltage-mode CCM averaged model (Erickson and Maksimovic, 2nd ed., sec. 7.2 and 8.2)",
+        SmallSignalModel.VoltageModeDiscontinuous => "voltage-mode full-order averaged DCM model (Sun et al. 2001)",
+        SmallSignalModel.PeakCurrentModeContinuous => "peak current-mode CCM model with Ridley's sampling terms (Ridley 1991)",
+        SmallSignalModel.PeakCurrentModeDiscontinuous => "peak current-mode full-order averaged DCM model with the peak-current duty-cycle law",
+        _ => "custom plant transfer function as entered (modulator included)",
+    };
 
     private static SpiceSweep Check(SpiceSweep? sweep, double amplifierGain)
     {
@@ -274,21 +494,7 @@ public static class SpiceNetlist
         w.Comment("feedback divider ahead of the amplifier");
         w.Line($"Rtop in fb {N(divider.TopOhm)}");
         w.Line($"Rbot fb 0 {N(divider.BottomOhm)}");
-        w.Comment("OTA: current gm (0 - v(fb)) into comp (reference at AC ground), output resistance Ro");
-        w.Line($"Gota comp 0 fb 0 {N(a.TransconductanceS)}");
-        w.Line($"Ro comp 0 {N(a.OutputResistanceOhm)}");
-        w.Comment($"{Describe(network.Type)} network from comp to ground");
-        if (network.Type == CompensatorType.TypeI)
-        {
-            w.Line($"C1 comp 0 {N(network.C1F)}");
-        }
-        else
-        {
-            w.Line($"R2 comp n2 {N(network.R2Ohm)}");
-            w.Line($"C1 n2 0 {N(network.C1F)}");
-            w.Line($"C2 comp 0 {N(network.C2F)}");
-        }
-
+        OtaLines(w, network);
         w.Comment("Gc as LoopShaper shows it, and from the converter output");
         w.Line($"Egc gc 0 comp 0 {N(-1.0 / divider.Ratio)}");
         w.Line("Egcout gcout 0 comp 0 -1");

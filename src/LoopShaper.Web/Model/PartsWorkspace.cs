@@ -1,9 +1,12 @@
 using System.Collections.Immutable;
+using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.Exports;
+using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Reporting;
 using LoopShaper.Core.Synthesis;
 using LoopShaper.Core.Validation;
+using static LoopShaper.Core.Units.EngineeringFormat;
 
 namespace LoopShaper.Web.Model;
 
@@ -36,8 +39,14 @@ public sealed class PartsWorkspace : IDisposable
     /// <summary>True while a synthesis runs.</summary>
     public bool IsRunning => _running;
 
-    /// <summary>The latest synthesis, or null.</summary>
+    /// <summary>The latest op-amp synthesis, or null (also for an OTA compensator).</summary>
     public DesignSynthesis? Result { get; private set; }
+
+    /// <summary>The latest OTA synthesis (transconductance compensator), or null.</summary>
+    public OtaDesignSynthesis? OtaResult { get; private set; }
+
+    /// <summary>What the parts are scaled from, in words: R1 (op-amp network) or gm and the divider (OTA); null before a synthesis.</summary>
+    public string? Anchor { get; private set; }
 
     /// <summary>The latest synthesis as report data, or null.</summary>
     public SynthesisReport? Report { get; private set; }
@@ -88,10 +97,13 @@ public sealed class PartsWorkspace : IDisposable
             var design = _workspace.Form.Build();
             try
             {
-                var (result, issues, exports) = await Task.Run(() => Synthesize(design)).ConfigureAwait(true);
-                Result = result;
-                Report = result is null ? null : SynthesisReport.From(result);
-                Exports = exports;
+                var done = await Task.Run(() => Synthesize(design)).ConfigureAwait(true);
+                var issues = done.Issues;
+                Result = done.Result;
+                OtaResult = done.Ota;
+                Report = done.Result is { } result ? SynthesisReport.From(result) : done.Ota is { } ota ? SynthesisReport.From(ota) : null;
+                Exports = done.Exports;
+                Anchor = done.Anchor;
                 Errors = [.. issues.Where(i => i.Severity == Severity.Error)];
                 ComputationError = null;
             }
@@ -99,8 +111,10 @@ public sealed class PartsWorkspace : IDisposable
             {
                 _logger.LogError(ex, "Synthesis of design '{Name}' failed", design.Name);
                 Result = null;
+                OtaResult = null;
                 Report = null;
                 Exports = null;
+                Anchor = null;
                 Errors = [];
                 ComputationError = "Choosing the parts failed: " + ex.Message;
             }
@@ -117,19 +131,42 @@ public sealed class PartsWorkspace : IDisposable
         }
     }
 
-    private static (DesignSynthesis? Result, ImmutableArray<ValidationIssue> Issues, PartsExports? Exports) Synthesize(LoopDesign design)
+    private static Synthesized Synthesize(LoopDesign design)
     {
+        string baseName = Path.GetFileNameWithoutExtension(ShareToken.FileNameOf(design.Name));
+        if (design.Compensator is TransconductanceNetwork)
+        {
+            if (!DesignSynthesizer.TrySynthesizeOta(design, DesignSynthesizer.OptionsOf(design), out var ota, out var otaIssues))
+            {
+                return new(null, null, otaIssues, null, null);
+            }
+
+            var snapped = ota!.Synthesis.SnappedNetwork;
+            var divider = ota.BuiltDesign.Plant is BuckPlant buck ? buck.Feedback : null;
+            var otaExports = new PartsExports(
+                baseName,
+                PartsListCsv.Write(ota.Synthesis),
+                divider is null ? null : SpiceNetlist.Compensator(snapped, divider, design.Name),
+                SpiceNetlist.Loop(ota.BuiltDesign, snapped));
+            string anchor = $"gm = {Format(snapped.Amplifier.TransconductanceS, "S")} of the OTA (Ro = {Format(snapped.Amplifier.OutputResistanceOhm, "Ohm")})"
+                + (divider is null ? ", the custom plant's divider ratio" : $", divider {Format(divider.TopOhm, "Ohm")} over {Format(divider.BottomOhm, "Ohm")} from the plant")
+                + ": R2, C1 and C2 follow from the placement; no neighbour search for the OTA network";
+            return new(null, ota, otaIssues, otaExports, anchor);
+        }
+
         if (!DesignSynthesizer.TrySynthesize(design, DesignSynthesizer.OptionsOf(design), out var result, out var issues))
         {
-            return (null, issues, null);
+            return new(null, null, issues, null, null);
         }
 
         var network = result!.Synthesis.ChosenNetwork;
         var exports = new PartsExports(
-            Path.GetFileNameWithoutExtension(ShareToken.FileNameOf(design.Name)),
+            baseName,
             PartsListCsv.Write(result.Synthesis),
             SpiceNetlist.Compensator(network, design.Name),
-            AveragedLoopSupport.ReasonAgainst(result.BuiltDesign) is null ? SpiceNetlist.AveragedLoop(result.BuiltDesign, network) : null);
-        return (result, issues, exports);
+            SpiceNetlist.Loop(result.BuiltDesign, network));
+        return new(result, null, issues, exports, $"R1 = {Format(network.R1Ohm, "Ohm")}, the input resistor and divider top: every other part follows from it");
     }
+
+    private sealed record Synthesized(DesignSynthesis? Result, OtaDesignSynthesis? Ota, ImmutableArray<ValidationIssue> Issues, PartsExports? Exports, string? Anchor);
 }

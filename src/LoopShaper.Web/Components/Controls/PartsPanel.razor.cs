@@ -7,7 +7,7 @@ using static LoopShaper.Core.Units.EngineeringFormat;
 namespace LoopShaper.Web.Components.Controls;
 
 /// <summary>
-/// The parts of the compensator: series choice and R1, every part with its ideal and standard value, the loop with
+/// The parts of the compensator (op-amp network or OTA network): series choice and R1 (gm and the divider anchor an OTA network), every part with its ideal and standard value, the loop with
 /// ideal and standard parts side by side, and the parts list and netlists to download. All figures come from the core.
 /// </summary>
 public partial class PartsPanel
@@ -25,6 +25,9 @@ public partial class PartsPanel
     private DesignForm Form => Workspace.Form;
 
     private bool Searched => Parts.Report?.Searched is not null;
+
+    /// <summary>A transconductance (OTA) compensator: gm and the divider anchor the parts, R1 and the neighbour search do not apply.</summary>
+    private bool IsOta => Form.Mode == CompensatorMode.Transconductance;
 
     private bool Stale => Parts.IsRunning || Parts.DesignRevision != Workspace.Revision;
 
