@@ -53,6 +53,25 @@ if (shot is not null)
     return 0;
 }
 
+if (args.Contains("--probe"))
+{
+    // Times Plotly.react on the loop-gain chart's own figure with parts of it left out, to see where the browser's time goes.
+    string script = await File.ReadAllTextAsync(args[Array.IndexOf(args, "--probe") + 1]);
+    var cdp = await page.Context.NewCDPSessionAsync(page);
+    await cdp.SendAsync("Profiler.enable");
+    await cdp.SendAsync("Profiler.setSamplingInterval", new Dictionary<string, object> { ["interval"] = 200 });
+    await cdp.SendAsync("Profiler.start");
+    Console.WriteLine(await page.EvaluateAsync<string>(script));
+    var profile = await cdp.SendAsync("Profiler.stop");
+    if (profile is System.Text.Json.JsonElement p)
+    {
+        await File.WriteAllTextAsync(Path.Combine(Path.GetTempPath(), "loopshaper-probe.cpuprofile"), p.GetProperty("profile").GetRawText());
+        Console.WriteLine("profile: " + Path.Combine(Path.GetTempPath(), "loopshaper-probe.cpuprofile"));
+    }
+
+    return 0;
+}
+
 // The demo's compensator is entered by parts; switch to frequencies (same loop) so the zero has its own field.
 await page.ClickAsync("[data-use-placement]");
 await page.WaitForSelectorAsync("#f-compensator-zero1Hz");

@@ -57,10 +57,10 @@ public sealed class CornersPanelTests : BunitContext
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<CornersPanel>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Threads, 1));
         cut.Find("[data-run-corners]").Click();
-        Eventually.True(() => module.Invocations.Any(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "corner-bode-chart")), "the overlay");
+        Eventually.True(() => PlotlyModule.Calls(module).Any(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "corner-bode-chart")), "the overlay");
 
         var table = cut.Instance.Table!;
-        var call = module.Invocations.Last(i => i.Identifier is "newPlot" or "react" && Equals(i.Arguments[0], "corner-bode-chart"));
+        var call = PlotlyModule.Calls(module).Last(i => i.Identifier is "newPlot" or "react" && Equals(i.Arguments[0], "corner-bode-chart"));
         using var data = JsonDocument.Parse(JsonSerializer.Serialize(call.Arguments[1]));
         var traces = data.RootElement.EnumerateArray().ToList();
         int withResponse = table.Rows.Count(r => r.LoopResponse is not null);

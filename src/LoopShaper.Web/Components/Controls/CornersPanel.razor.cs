@@ -26,6 +26,7 @@ public sealed partial class CornersPanel : IDisposable
     private bool _onlyFailing;
     private bool _drawn;
     private bool _needsRedraw;
+    private bool _disposed;
     private BackgroundRun<CornerTable>? _run;
 
     /// <summary>The analysis whose design is swept (a valid one).</summary>
@@ -35,6 +36,10 @@ public sealed partial class CornersPanel : IDisposable
     /// <summary>Threads the sweep may use; null takes half the cores (the server is shared by every open workspace).</summary>
     [Parameter]
     public int? Threads { get; set; }
+
+    /// <summary>How long a new analysis must stay the latest before it is swept, ms (the main charts come first while the engineer types).</summary>
+    [Parameter]
+    public int SettleMs { get; set; } = 300;
 
     /// <summary>The sweep.</summary>
     public BackgroundRun<CornerTable> Run => _run ??= CreateRun();
@@ -51,6 +56,7 @@ public sealed partial class CornersPanel : IDisposable
     /// <inheritdoc />
     public void Dispose()
     {
+        _disposed = true;
         if (_run is not null)
         {
             _run.Changed -= OnRunChanged;
@@ -70,7 +76,7 @@ public sealed partial class CornersPanel : IDisposable
     {
         if (_opened && !ReferenceEquals(Analysis, _sweptFrom))
         {
-            _ = Sweep();
+            _ = SweepWhenSettled(Analysis);
         }
     }
 
@@ -81,6 +87,16 @@ public sealed partial class CornersPanel : IDisposable
         {
             _needsRedraw = false;
             await _chart.React();
+        }
+    }
+
+    private async Task SweepWhenSettled(DesignAnalysis analysis)
+    {
+        _sweptFrom = analysis;
+        await Task.Delay(SettleMs).ConfigureAwait(true);
+        if (!_disposed && ReferenceEquals(Analysis, analysis))
+        {
+            await Sweep();
         }
     }
 
