@@ -1,5 +1,6 @@
 using System.Globalization;
 using LoopShaper.Browser.Tests;
+using LoopShaper.Tests.Shared;
 using Microsoft.Playwright;
 
 // Browser benchmark (not a test): 50 input changes in the workspace, each timed from the change in the page to both
