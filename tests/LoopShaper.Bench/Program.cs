@@ -14,6 +14,11 @@ var rows = new JsonArray();
 Console.WriteLine($"LoopShaper core benchmark, {Environment.ProcessorCount} cores, .NET {Environment.Version}");
 Console.WriteLine($"{"design",-40} {"resp+margins us",16} {"loop analysis us",17} {"whole design us",16}");
 bool cornersOnly = args.Contains("--corners-only");
+if (ArgValue(args, "--mc-export") is string mcExport)
+{
+    return MonteCarloLoops(Path.Combine(dir, ArgValue(args, "--design") ?? "core-rail-12v-to-1v0.json"), mcExport);
+}
+
 if (args.Contains("--profile"))
 {
     var dz = DesignFile.Read(File.ReadAllText(Path.Combine(dir, "core-rail-12v-to-1v0.json"))).Design!;
@@ -144,6 +149,71 @@ if (export is not null)
 }
 
 return 0;
+
+// The 10,000 loops of a Monte Carlo run (seed 1, uniform), each evaluated as the SciPy comparison does: the loop gain
+// on 1000 log-spaced points and every margin. Times the core on those same loops, one thread and both cores, and writes
+// the loops (zeros, poles, gain, delay) with the times to a JSON file for tests/LoopShaper.Bench/scipy_monte_carlo.py.
+static int MonteCarloLoops(string file, string output)
+{
+    var design = CornerSweep.Fixed(DesignFile.Read(File.ReadAllText(file)).Design!);
+    var settings = new MonteCarloSettings(Samples: 10_000, Seed: 1);
+    var parameters = ToleranceModel.Parameters(design);
+    var at = MonteCarloRunner.ConditionOf(design, settings);
+    var loops = new LoopShaper.Core.TransferFunctions.TransferFunction[settings.Samples];
+    for (int i = 0; i < loops.Length; i++)
+    {
+        var sample = ToleranceModel.Apply(design, parameters, MonteCarloRunner.Factors(parameters, settings, i));
+        loops[i] = DesignAnalyzer.BuildLoop(sample, at).Loop.LoopGain;
+    }
+
+    var a = design.Analysis;
+    var grid = new FrequencyGrid(a.StartHz, a.StopHz, 1000).LogSpaced();
+    double[] pm = new double[loops.Length];
+    void Evaluate(int i)
+    {
+        var r = FrequencyResponse.Of(loops[i], grid);
+        var m = MarginAnalyzer.Analyze(loops[i], a.StartHz, a.StopHz);
+        pm[i] = (m.PhaseMarginDeg ?? double.NaN) + (0 * r.Count);
+    }
+
+    for (int i = 0; i < 500; i++)
+    {
+        Evaluate(i); // tiered JIT warm-up
+    }
+
+    var sw = Stopwatch.StartNew();
+    for (int i = 0; i < loops.Length; i++)
+    {
+        Evaluate(i);
+    }
+
+    double oneThreadS = sw.Elapsed.TotalSeconds;
+    sw.Restart();
+    Parallel.For(0, loops.Length, Evaluate);
+    double bothCoresS = sw.Elapsed.TotalSeconds;
+    Console.WriteLine($"{Path.GetFileName(file)}: 10,000 loop evaluations (1000 points + margins each): {oneThreadS:F3} s on one thread, {bothCoresS:F3} s on {Environment.ProcessorCount} cores");
+
+    var json = new JsonObject
+    {
+        ["design"] = Path.GetFileName(file),
+        ["startHz"] = a.StartHz,
+        ["stopHz"] = a.StopHz,
+        ["oneThreadS"] = oneThreadS,
+        ["allCoresS"] = bothCoresS,
+        ["cores"] = Environment.ProcessorCount,
+        ["loops"] = new JsonArray([.. loops.Select((t, i) => (JsonNode)new JsonObject
+        {
+            ["gain"] = t.Gain,
+            ["originOrder"] = t.OriginOrder,
+            ["zerosRadPerS"] = new JsonArray([.. t.AllZeros.Select(z => (JsonNode)new JsonArray(z.Real, z.Imaginary))]),
+            ["polesRadPerS"] = new JsonArray([.. t.AllPoles.Select(p => (JsonNode)new JsonArray(p.Real, p.Imaginary))]),
+            ["delayS"] = t.DelayS,
+            ["phaseMarginDeg"] = double.IsFinite(pm[i]) ? pm[i] : null,
+        })]),
+    };
+    File.WriteAllText(output, json.ToJsonString());
+    return 0;
+}
 
 static double Time(Func<int> work)
 {

@@ -36,6 +36,15 @@ def margins(z, p, k, delay, f0, f1):
             pass
     return gc, pc
 
+def zpk_of(L):
+    """Zeros, poles (rad/s) and zpk gain of an exported loop.
+
+    Bode gain K s^n prod(1 - s/z)/prod(1 - s/p) -> zpk gain K prod(-1/z) / prod(-1/p) over the non-zero roots."""
+    z = np.array([complex(a, b) for a, b in L["zerosRadPerS"]])
+    p = np.array([complex(a, b) for a, b in L["polesRadPerS"]])
+    k = L["gain"] * np.prod([-1 / x for x in z if x != 0]).real / np.prod([-1 / x for x in p if x != 0]).real
+    return z, p, k
+
 def main():
     root = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))
     out = os.path.join(tempfile.mkdtemp(), "loops.json")
@@ -44,10 +53,7 @@ def main():
     print(f"{'design':36} {'scipy us':>10} {'loopshaper us':>14} {'ratio':>7}")
     ratios = []
     for L in loops:
-        z = np.array([complex(a, b) for a, b in L["zerosRadPerS"]])
-        p = np.array([complex(a, b) for a, b in L["polesRadPerS"]])
-        # Bode gain K s^n prod(1 - s/z)/prod(1 - s/p) -> zpk gain K prod(-1/z) / prod(-1/p) over the non-zero roots.
-        k = L["gain"] * np.prod([-1 / x for x in z if x != 0]).real / np.prod([-1 / x for x in p if x != 0]).real
+        z, p, k = zpk_of(L)
         f0, f1, d = L["startHz"], L["stopHz"], L["delayS"]
         w = 2 * np.pi * np.logspace(np.log10(f0), np.log10(f1), 1000)
         reps = 20

@@ -30,14 +30,19 @@ public sealed class CornersAndMonteCarloTests(WorkspaceFixture fixture) : IAsync
     public async Task The_corner_sweep_lists_every_corner_marks_the_worst_and_overlays_their_loops()
     {
         var page = await OpenAsync();
-        await page.ClickAsync("[data-run-corners]");
+        // The sweep runs by itself in the background once the design has settled.
         await page.WaitForSelectorAsync("[data-corner-table]", new PageWaitForSelectorOptions { Timeout = 120_000 });
         await page.WaitForSelectorAsync("#corner-bode-chart .main-svg");
 
         // 3 input corners x 3 load corners x 4 tolerance sets (the core's CornerSet.Full).
         Assert.Equal(36, await page.Locator("[data-corner-row]").CountAsync());
         Assert.Equal(1, await page.Locator("[data-cell='pm'][data-worst='true']").CountAsync());
-        Assert.Matches(@"^(All 36 corners meet the criteria|\d+ of 36 corners miss a criterion)$", (await page.InnerTextAsync("[data-corners-verdict]")).Trim());
+        string verdict = (await page.InnerTextAsync("[data-corners-verdict]")).Trim();
+        Assert.Matches(@"^(All 36 corners meet the criteria|\d+ of 36 corners miss a criterion)$", verdict);
+
+        // The summary judges the same table.
+        await page.WaitForSelectorAsync("[data-summary-corners='pass'], [data-summary-corners='fail']");
+        Assert.Contains(verdict, await page.InnerTextAsync("[data-summary-corners]"), StringComparison.Ordinal);
         var card = page.Locator("section.card", new PageLocatorOptions { Has = page.Locator("[data-corners-panel]") });
         await card.ScrollIntoViewIfNeededAsync();
         await page.WaitForTimeoutAsync(400);

@@ -1,3 +1,5 @@
+using LoopShaper.Tests.Shared;
+
 namespace LoopShaper.Browser.Tests;
 
 /// <summary>One app process for all browser tests of a run.</summary>

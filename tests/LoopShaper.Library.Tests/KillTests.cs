@@ -2,6 +2,7 @@ using System.Collections.Concurrent;
 using System.Text;
 using System.Text.Json;
 using LoopShaper.Core.Design;
+using LoopShaper.Tests.Shared;
 using Microsoft.Data.Sqlite;
 
 namespace LoopShaper.Library.Tests;
@@ -26,7 +27,7 @@ public sealed class KillTests
         string path = Path.Combine(folder, "library.db");
         var acks = new ConcurrentBag<Ack>();
         int inFlightAtKill;
-        var app = await AppProcess.StartAsync("--library", path, "--Library:AutomationEndpoint", "true");
+        var app = await WebAppProcess.StartAsync("--library", path, "--Library:AutomationEndpoint", "true");
         try
         {
             using var http = new HttpClient { BaseAddress = app.BaseUri, Timeout = TimeSpan.FromSeconds(30) };

@@ -1,5 +1,6 @@
 using System.Globalization;
 using LoopShaper.Browser.Tests;
+using LoopShaper.Tests.Shared;
 using Microsoft.Playwright;
 
 // Browser benchmark (not a test): 50 input changes in the workspace, each timed from the change in the page to both
@@ -50,6 +51,25 @@ if (shot is not null)
     await (await page.QuerySelectorAsync(".inputs"))!.EvaluateAsync("e => e.scrollTop = 1800");
     await page.ScreenshotAsync(new PageScreenshotOptions { Path = Path.ChangeExtension(shot, null) + "-inputs3.png" });
     Console.WriteLine("screenshots: " + shot + " and its -card*.png, -inputs*.png");
+    return 0;
+}
+
+if (args.Contains("--probe"))
+{
+    // Times Plotly.react on the loop-gain chart's own figure with parts of it left out, to see where the browser's time goes.
+    string script = await File.ReadAllTextAsync(args[Array.IndexOf(args, "--probe") + 1]);
+    var cdp = await page.Context.NewCDPSessionAsync(page);
+    await cdp.SendAsync("Profiler.enable");
+    await cdp.SendAsync("Profiler.setSamplingInterval", new Dictionary<string, object> { ["interval"] = 200 });
+    await cdp.SendAsync("Profiler.start");
+    Console.WriteLine(await page.EvaluateAsync<string>(script));
+    var profile = await cdp.SendAsync("Profiler.stop");
+    if (profile is System.Text.Json.JsonElement p)
+    {
+        await File.WriteAllTextAsync(Path.Combine(Path.GetTempPath(), "loopshaper-probe.cpuprofile"), p.GetProperty("profile").GetRawText());
+        Console.WriteLine("profile: " + Path.Combine(Path.GetTempPath(), "loopshaper-probe.cpuprofile"));
+    }
+
     return 0;
 }
 

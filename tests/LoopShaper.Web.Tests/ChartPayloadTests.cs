@@ -33,11 +33,14 @@ public sealed class ChartPayloadTests : BunitContext
         var x = loop.GetProperty("x").EnumerateArray().Select(v => v.GetDouble()).ToArray();
         var y = loop.GetProperty("y").EnumerateArray().Select(v => v.GetDouble()).ToArray();
 
-        // The magnitude trace is the core's loop response: every point sent is a point of the core's grid (thinned to
-        // at most BodeFigure.MaxPoints, rounded for display to 6 digits in Hz and 0.001 dB), ends and extremes kept.
+        // The magnitude trace is the core's loop response: every point sent is a point of the core's grid (simplified to
+        // at most BodeFigure.MaxPoints, rounded for display to 6 digits in Hz and 0.001 dB), ends and extremes kept, and
+        // the drawn segments pass within BodeFigure.MagnitudeToleranceDb of every computed point.
         var r = analysis.LoopResponse!;
-        Assert.InRange(x.Length, 100, BodeFigure.MaxPoints + 2);
+        Assert.InRange(x.Length, 10, BodeFigure.MaxPoints + 2);
+        Assert.True(x.Length < r.FrequencyHz.Length / 2, $"{x.Length} of {r.FrequencyHz.Length} points sent: the smooth loop response was not simplified");
         AssertOnCurve(r.FrequencyHz, r.MagnitudeDb, x, y, 1e-3);
+        AssertCovers(r.FrequencyHz, r.MagnitudeDb, x, y, BodeFigure.MagnitudeToleranceDb + 1e-3, logX: true);
         Assert.Equal(r.FrequencyHz[0], x[0], 1e-6 * r.FrequencyHz[0]);
         Assert.Equal(r.FrequencyHz[^1], x[^1], 1e-6 * r.FrequencyHz[^1]);
         Assert.Equal(r.MagnitudeDb.Max(), y.Max(), 1e-3);
@@ -46,7 +49,10 @@ public sealed class ChartPayloadTests : BunitContext
 
         var phase = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.LoopName + " phase");
         Assert.Equal("y2", phase.GetProperty("yaxis").GetString());
-        AssertOnCurve(r.FrequencyHz, r.PhaseDeg, [.. phase.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())], [.. phase.GetProperty("y").EnumerateArray().Select(v => v.GetDouble())], 1e-3);
+        double[] px = [.. phase.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())];
+        double[] py = [.. phase.GetProperty("y").EnumerateArray().Select(v => v.GetDouble())];
+        AssertOnCurve(r.FrequencyHz, r.PhaseDeg, px, py, 1e-3);
+        AssertCovers(r.FrequencyHz, r.PhaseDeg, px, py, BodeFigure.PhaseToleranceDeg + 1e-3, logX: true);
 
         using var layout = Json(call.Arguments[2]);
         var text = layout.RootElement.GetRawText();
@@ -114,8 +120,10 @@ public sealed class ChartPayloadTests : BunitContext
         var step = analysis.LoadStep!;
         double[] ly = [.. load.GetProperty("y").EnumerateArray().Select(v => v.GetDouble())];
         double quantum = 1e-5 * step.Value.Max(Math.Abs);
-        AssertOnCurve(step.TimeS, step.Value, [.. load.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())], ly, quantum);
-        Assert.InRange(ly.Length, 100, StepFigure.MaxPoints + 2);
+        double[] lx = [.. load.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())];
+        AssertOnCurve(step.TimeS, step.Value, lx, ly, quantum);
+        AssertCovers(step.TimeS, step.Value, lx, ly, ChartNumbers.TimeTolerance(step.Value) + quantum, logX: false);
+        Assert.InRange(ly.Length, 10, StepFigure.MaxPoints + 2);
         Assert.Equal(step.Metrics.PeakDeviation, ly.Min(), quantum); // the undershoot peak survives thinning
         Assert.Contains(names, n => n.StartsWith(StepFigure.ReferenceName, StringComparison.Ordinal));
 
@@ -181,6 +189,29 @@ public sealed class ChartPayloadTests : BunitContext
 
             Assert.True(best <= 1e-5 * Math.Max(Math.Abs(x[i]), 1e-12), $"x = {x[i]} is not on the core's grid");
             Assert.Equal(coreY[k], y[i], tolerance);
+        }
+    }
+
+    /// <summary>Every computed point lies within <paramref name="tolerance"/> of the drawn polyline (linear in log x when <paramref name="logX"/>).</summary>
+    private static void AssertCovers(System.Collections.Immutable.ImmutableArray<double> coreX, System.Collections.Immutable.ImmutableArray<double> coreY, double[] x, double[] y, double tolerance, bool logX)
+    {
+        Func<double, double> u = logX ? Math.Log10 : v => v;
+        int k = 0;
+        for (int j = 0; j < coreX.Length; j++)
+        {
+            if (!double.IsFinite(coreY[j]))
+            {
+                continue;
+            }
+
+            while (k < x.Length - 2 && x[k + 1] < coreX[j] * (1 - 1e-7))
+            {
+                k++;
+            }
+
+            double t = (u(coreX[j]) - u(x[k])) / (u(x[k + 1]) - u(x[k]));
+            double drawn = y[k] + (Math.Clamp(t, 0, 1) * (y[k + 1] - y[k]));
+            Assert.True(Math.Abs(drawn - coreY[j]) <= tolerance * (1 + 1e-9), $"at x = {coreX[j]} the chart draws {drawn}, the core has {coreY[j]} (tolerance {tolerance})");
         }
     }
 

@@ -5,6 +5,7 @@ using LoopShaper.Core.Design;
 using LoopShaper.Web.Components.Controls;
 using LoopShaper.Web.Model.Charts;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
 
 namespace LoopShaper.Web.Tests;
 
@@ -22,9 +23,10 @@ public sealed class CornersPanelTests : BunitContext
     {
         PlotlyModule.Setup(JSInterop);
         var analysis = TestDesigns.DemoAnalysis;
-        var cut = Render<CornersPanel>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Threads, 1));
-        Assert.Empty(cut.FindAll("[data-corner-row]")); // nothing runs before the engineer asks
-        cut.Find("[data-run-corners]").Click();
+        using var watch = Watch();
+        var cut = Render<CornersPanel>(p => p.Add(c => c.Watch, watch));
+        Assert.Empty(cut.FindAll("[data-corner-row]")); // no table before the first sweep
+        _ = watch.Follow(analysis);
 
         Eventually.True(() => cut.Instance.Run.State == RunState.Finished, "the corner sweep");
         cut.WaitForAssertion(() => Assert.Equal(CornerSet.Full.Length, cut.FindAll("[data-corner-row]").Count));
@@ -55,12 +57,13 @@ public sealed class CornersPanelTests : BunitContext
     {
         var module = PlotlyModule.Setup(JSInterop);
         var analysis = TestDesigns.DemoAnalysis;
-        var cut = Render<CornersPanel>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Threads, 1));
-        cut.Find("[data-run-corners]").Click();
-        Eventually.True(() => module.Invocations.Any(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "corner-bode-chart")), "the overlay");
+        using var watch = Watch();
+        var cut = Render<CornersPanel>(p => p.Add(c => c.Watch, watch));
+        _ = watch.Follow(analysis);
+        Eventually.True(() => PlotlyModule.Calls(module).Any(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "corner-bode-chart")), "the overlay");
 
         var table = cut.Instance.Table!;
-        var call = module.Invocations.Last(i => i.Identifier is "newPlot" or "react" && Equals(i.Arguments[0], "corner-bode-chart"));
+        var call = PlotlyModule.Calls(module).Last(i => i.Identifier is "newPlot" or "react" && Equals(i.Arguments[0], "corner-bode-chart"));
         using var data = JsonDocument.Parse(JsonSerializer.Serialize(call.Arguments[1]));
         var traces = data.RootElement.EnumerateArray().ToList();
         int withResponse = table.Rows.Count(r => r.LoopResponse is not null);
@@ -81,4 +84,46 @@ public sealed class CornersPanelTests : BunitContext
 
         Assert.DoesNotContain("NaN", data.RootElement.GetRawText(), StringComparison.Ordinal);
     }
+
+    [Fact]
+    public async Task Changes_in_quick_succession_are_swept_once_for_the_latest_design_and_an_invalid_one_is_not_swept()
+    {
+        using var watch = new CornerWatch(Services.GetRequiredService<ILoggerFactory>().CreateLogger("corners")) { SettleMs = 200, Threads = 1 };
+        var first = TestDesigns.DemoAnalysis;
+        var latest = first with { };
+        var pending = watch.Follow(first);
+        var last = watch.Follow(latest);
+        _ = watch.Follow(first with { Loop = null }); // input errors: IsValid is false, nothing to sweep
+        await Task.WhenAll(pending, last);
+
+        Assert.Same(latest, watch.SweptFrom);
+        Assert.True(watch.IsCurrentFor(latest));
+        Assert.False(watch.IsCurrentFor(first));
+        Assert.Equal(CornerSet.Full.Length, watch.Table!.Rows.Length);
+    }
+
+    [Fact]
+    public async Task The_summary_judges_the_same_corner_table_as_the_corners_card()
+    {
+        PlotlyModule.Setup(JSInterop);
+        var analysis = TestDesigns.DemoAnalysis;
+        using var watch = Watch();
+        var cut = Render<SummaryPanel>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Corners, watch));
+        Assert.Equal("pending", cut.Find("[data-summary-corners]").GetAttribute("data-summary-corners"));
+
+        await watch.Follow(analysis);
+        cut.Render();
+        var table = watch.Table!;
+        string state = table.AllPass ? "pass" : "fail";
+        Assert.Equal(state, cut.Find("[data-summary-corners]").GetAttribute("data-summary-corners"));
+        string text = cut.Find("[data-summary-corners]").TextContent;
+        Assert.Contains(table.AllPass ? $"All {table.Rows.Length} corners meet the criteria" : $"{table.Failing.Count()} of {table.Rows.Length} corners miss a criterion", text, StringComparison.Ordinal);
+        var worst = table.Rows[table.Worst.PhaseMargin!.Value];
+        Assert.Contains($"smallest phase margin {worst.Figures!.PhaseMarginDeg!.Value.ToString("F1", CultureInfo.InvariantCulture)} ° at {worst.Corner.Label}", text, StringComparison.Ordinal);
+
+        // The verdict above it says where the criteria list was checked.
+        Assert.Contains("at the analysed point", cut.Find("[data-verdict]").TextContent, StringComparison.Ordinal);
+    }
+
+    private CornerWatch Watch() => new(Services.GetRequiredService<ILoggerFactory>().CreateLogger("corners")) { SettleMs = 0, Threads = 1 };
 }

@@ -71,12 +71,12 @@ public sealed class MonteCarloPanelTests : BunitContext
         cut.Find("[data-mc-run]").Click();
         var run = cut.Instance.Run;
         Eventually.True(() => run.State == RunState.Finished, "the run");
-        Eventually.True(() => module.Invocations.Any(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "mc-histogram-chart")), "the histograms");
+        Eventually.True(() => PlotlyModule.Calls(module).Any(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "mc-histogram-chart")), "the histograms");
         var result = run.Result!;
         Assert.Equal(SampleDistribution.Normal, result.Settings.Distribution);
         Assert.Equal(7UL, result.Settings.Seed);
 
-        using var data = JsonDocument.Parse(JsonSerializer.Serialize(module.Invocations.Last(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "mc-histogram-chart")).Arguments[1]));
+        using var data = JsonDocument.Parse(JsonSerializer.Serialize(PlotlyModule.Calls(module).Last(i => i.Identifier == "newPlot" && Equals(i.Arguments[0], "mc-histogram-chart")).Arguments[1]));
         var bars = data.RootElement.EnumerateArray().Where(t => t.GetProperty("type").GetString() == "bar").ToList();
         Assert.Equal(HistogramFigure.Panels.Count(p => result.Distribution(p.Figure) is not null), bars.Count);
         var pm = bars.Single(b => b.GetProperty("name").GetString() == "phaseMarginDeg");

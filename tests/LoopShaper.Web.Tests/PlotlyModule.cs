@@ -20,4 +20,23 @@ public static class PlotlyModule
         module.SetupVoid("purge", _ => true).SetVoidResult();
         return module;
     }
+
+    /// <summary>
+    /// The calls recorded so far, copied: bUnit's record is not safe to read while the renderer's thread adds to it
+    /// (a chart's Plotly.react comes after its render), so a copy that raced with a new call is taken again.
+    /// </summary>
+    public static List<JSRuntimeInvocation> Calls(BunitJSModuleInterop module)
+    {
+        while (true)
+        {
+            try
+            {
+                return [.. module.Invocations];
+            }
+            catch (InvalidOperationException)
+            {
+                Thread.Yield();
+            }
+        }
+    }
 }

@@ -32,6 +32,14 @@ public sealed partial class ClosedLoopPanel : IDisposable
     [Parameter, EditorRequired]
     public DesignAnalysis Analysis { get; set; } = default!;
 
+    /// <summary>
+    /// How long the design must stay unchanged before it is analysed again, ms: while the engineer types or drags,
+    /// this panel waits and leaves both cores to the loop-gain and step charts. The first analysis and a chosen
+    /// operating point start at once.
+    /// </summary>
+    [Parameter]
+    public int SettleMs { get; set; } = 300;
+
     /// <summary>The selected operating point: <see cref="ClosedLoopPoint.Main"/> or a corner's key.</summary>
     public string Choice { get; private set; } = ClosedLoopPoint.Main;
 
@@ -66,7 +74,7 @@ public sealed partial class ClosedLoopPanel : IDisposable
     {
         if (!ReferenceEquals(Analysis, _builtFrom) || Choice != _builtChoice)
         {
-            await Recompute();
+            await Recompute(_builtFrom is null ? 0 : SettleMs);
         }
     }
 
@@ -93,7 +101,7 @@ public sealed partial class ClosedLoopPanel : IDisposable
         }
     }
 
-    private async Task Recompute()
+    private async Task Recompute(int settleMs)
     {
         _builtFrom = Analysis;
         _builtChoice = Choice;
@@ -103,7 +111,17 @@ public sealed partial class ClosedLoopPanel : IDisposable
         var design = Analysis.Design;
         string key = Choice;
         _computing = true;
-        var work = Task.Run(() => ClosedLoopPoint.Analyze(design, key, cts.Token), cts.Token);
+        var work = Task.Run(
+            async () =>
+            {
+                if (settleMs > 0)
+                {
+                    await Task.Delay(settleMs, cts.Token).ConfigureAwait(false);
+                }
+
+                return ClosedLoopPoint.Analyze(design, key, cts.Token);
+            },
+            cts.Token);
         Computed = work.ContinueWith(_ => { }, TaskScheduler.Default);
         try
         {
@@ -137,7 +155,7 @@ public sealed partial class ClosedLoopPanel : IDisposable
     private async Task OnCorner(ChangeEventArgs e)
     {
         Choice = e.Value?.ToString() ?? ClosedLoopPoint.Main;
-        await Recompute();
+        await Recompute(0);
     }
 
     private async void OnFrequencyDrawn()

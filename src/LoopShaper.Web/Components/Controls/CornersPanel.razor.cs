@@ -1,6 +1,5 @@
 using System.Globalization;
 using LoopShaper.Core.Corners;
-using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Units;
 using LoopShaper.Web.Model.Charts;
@@ -10,8 +9,8 @@ using Plotly.Blazor;
 namespace LoopShaper.Web.Components.Controls;
 
 /// <summary>
-/// The corner table and the overlaid loop Bode of every corner. The sweep runs in the background once opened and again
-/// after every new analysis (a sweep still going is cancelled); the last table stays shown while the next one runs.
+/// The corner table and the overlaid loop Bode of every corner, from the workspace's <see cref="CornerWatch"/> (swept in
+/// the background after every settled change); the last table stays shown while the next one runs.
 /// </summary>
 public sealed partial class CornersPanel : IDisposable
 {
@@ -21,23 +20,17 @@ public sealed partial class CornersPanel : IDisposable
     private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
     private ChartFigure? _firstFigure;
     private CornerTable? _figureOf;
-    private DesignAnalysis? _sweptFrom;
-    private bool _opened;
+    private CornerWatch? _subscribed;
     private bool _onlyFailing;
     private bool _drawn;
     private bool _needsRedraw;
-    private BackgroundRun<CornerTable>? _run;
 
-    /// <summary>The analysis whose design is swept (a valid one).</summary>
+    /// <summary>The corner sweep of the open design.</summary>
     [Parameter, EditorRequired]
-    public DesignAnalysis Analysis { get; set; } = default!;
-
-    /// <summary>Threads the sweep may use; null takes half the cores (the server is shared by every open workspace).</summary>
-    [Parameter]
-    public int? Threads { get; set; }
+    public CornerWatch Watch { get; set; } = default!;
 
     /// <summary>The sweep.</summary>
-    public BackgroundRun<CornerTable> Run => _run ??= CreateRun();
+    public BackgroundRun<CornerTable> Run => Watch.Run;
 
     /// <summary>The table shown, or null before the first sweep finished.</summary>
     public CornerTable? Table => Run.Result;
@@ -45,32 +38,28 @@ public sealed partial class CornersPanel : IDisposable
     /// <summary>The overlay last sent to the chart.</summary>
     public ChartFigure Figure => _figure;
 
-    [Inject]
-    private ILogger<CornersPanel> Logger { get; set; } = default!;
-
     /// <inheritdoc />
     public void Dispose()
     {
-        if (_run is not null)
+        if (_subscribed is not null)
         {
-            _run.Changed -= OnRunChanged;
-            _run.Dispose();
+            _subscribed.Changed -= OnRunChanged;
         }
-    }
-
-    /// <summary>Opens the panel and sweeps the current design.</summary>
-    public Task Open()
-    {
-        _opened = true;
-        return Sweep();
     }
 
     /// <inheritdoc />
     protected override void OnParametersSet()
     {
-        if (_opened && !ReferenceEquals(Analysis, _sweptFrom))
+        if (!ReferenceEquals(Watch, _subscribed))
         {
-            _ = Sweep();
+            if (_subscribed is not null)
+            {
+                _subscribed.Changed -= OnRunChanged;
+            }
+
+            _subscribed = Watch;
+            Watch.Changed += OnRunChanged;
+            UpdateFigure();
         }
     }
 
@@ -84,33 +73,21 @@ public sealed partial class CornersPanel : IDisposable
         }
     }
 
-    private Task Sweep()
-    {
-        _sweptFrom = Analysis;
-        var design = Analysis.Design;
-        int threads = Threads ?? Math.Max(1, Environment.ProcessorCount / 2);
-        var options = new CornerSweepOptions(MaxDegreeOfParallelism: threads);
-        return Run.Start((progress, token) => CornerSweep.Run(design, options, token));
-    }
-
-    private BackgroundRun<CornerTable> CreateRun()
-    {
-        var run = new BackgroundRun<CornerTable>(Logger);
-        run.Changed += OnRunChanged;
-        return run;
-    }
-
-    private void OnRunChanged() => _ = InvokeAsync(() =>
+    private void UpdateFigure()
     {
         if (Table is CornerTable t && !ReferenceEquals(t, _figureOf))
         {
-            var range = t.Rows.Length > 0 ? Analysis.Design.Analysis : null;
+            var range = Watch.SweptFrom?.Design.Analysis;
             _figure = CornerBodeFigure.Build(t, range?.StartHz ?? 0, range?.StopHz ?? 0);
             _firstFigure ??= _figure;
             _figureOf = t;
             _needsRedraw = true;
         }
+    }
 
+    private void OnRunChanged() => _ = InvokeAsync(() =>
+    {
+        UpdateFigure();
         StateHasChanged();
     });
 

@@ -1,5 +1,6 @@
 using System.Globalization;
 using LoopShaper.Core.Analysis;
+using LoopShaper.Core.Corners;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Validation;
@@ -16,6 +17,10 @@ public partial class SummaryPanel
     /// <summary>The latest analysis, or null.</summary>
     [Parameter]
     public DesignAnalysis? Analysis { get; set; }
+
+    /// <summary>The corner sweep of the design, or null where there is none.</summary>
+    [Parameter]
+    public CornerWatch? Corners { get; set; }
 
     /// <summary>Why the analysis failed, or null.</summary>
     [Parameter]
@@ -46,6 +51,45 @@ public partial class SummaryPanel
             }
 
             return list;
+        }
+    }
+
+    /// <summary>Where the criteria above were checked: the main operating point, not every corner.</summary>
+    private string AtPoint => Analysis is not null && ClosedLoopPoint.MainCondition(Analysis.Design) is { } at
+        ? $" at the analysed point ({Format(at.InputVoltageV, "V")}, {Format(at.LoadCurrentA, "A")}, nominal parts)"
+        : string.Empty;
+
+    /// <summary>pass or fail from the finished sweep of this very analysis; pending while it settles or runs.</summary>
+    private string CornerState => Corners?.Table is CornerTable t && Corners.IsCurrentFor(Analysis) ? (t.AllPass ? "pass" : "fail") : "pending";
+
+    private string CornerLine
+    {
+        get
+        {
+            if (Corners is null)
+            {
+                return "Corners: not swept.";
+            }
+
+            if (Corners.Run.State == RunState.Failed && ReferenceEquals(Corners.SweptFrom, Analysis))
+            {
+                return "Corners: the sweep failed: " + Corners.Run.Error;
+            }
+
+            if (Corners.Table is not CornerTable t)
+            {
+                return "Corners: sweeping in the background…";
+            }
+
+            string verdict = t.AllPass
+                ? $"All {t.Rows.Length} corners meet the criteria"
+                : $"{t.Failing.Count()} of {t.Rows.Length} corners miss a criterion";
+            if (t.Worst.PhaseMargin is int w && t.Rows[w].Figures?.PhaseMarginDeg is double pm)
+            {
+                verdict += $"; smallest phase margin {pm.ToString("F1", Inv)} ° at {t.Rows[w].Corner.Label}";
+            }
+
+            return Corners.IsCurrentFor(Analysis) ? verdict + " (Corners card)." : verdict + " (last sweep; updating…)";
         }
     }
 

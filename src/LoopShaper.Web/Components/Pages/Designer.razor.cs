@@ -25,6 +25,9 @@ public sealed partial class Designer : IDisposable
     /// <summary>The open design (created on initialisation).</summary>
     public DesignWorkspace Workspace { get; private set; } = default!;
 
+    /// <summary>The corner sweep of the open design (created with the workspace).</summary>
+    public CornerWatch Corners { get; private set; } = default!;
+
     /// <summary>The parts of the open design (created with the workspace).</summary>
     public PartsWorkspace Parts { get; private set; } = default!;
 
@@ -60,6 +63,8 @@ public sealed partial class Designer : IDisposable
         Workspace.Changed -= OnWorkspaceChanged;
         Parts.Changed -= OnWorkspaceChanged;
         Parts.Dispose();
+        Corners.Changed -= OnCornersChanged;
+        Corners.Dispose();
     }
 
     /// <inheritdoc />
@@ -95,6 +100,8 @@ public sealed partial class Designer : IDisposable
         Workspace.Changed += OnWorkspaceChanged;
         Parts = new PartsWorkspace(Workspace, Logger);
         Parts.Changed += OnWorkspaceChanged;
+        Corners = new CornerWatch(Logger);
+        Corners.Changed += OnCornersChanged;
         await Workspace.RecomputeAsync();
     }
 
@@ -108,7 +115,20 @@ public sealed partial class Designer : IDisposable
         }
     }
 
-    private void OnWorkspaceChanged() => _ = InvokeAsync(StateHasChanged);
+    private void OnWorkspaceChanged()
+    {
+        _ = Corners.Follow(Workspace.Analysis);
+        _ = InvokeAsync(StateHasChanged);
+    }
+
+    // Only a finished (or failed) sweep changes the summary; progress is the Corners card's own business.
+    private void OnCornersChanged()
+    {
+        if (!Corners.Run.IsRunning)
+        {
+            _ = InvokeAsync(StateHasChanged);
+        }
+    }
 
     private Task Recompute() => Workspace.RecomputeAsync();
 

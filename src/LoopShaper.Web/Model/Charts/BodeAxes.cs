@@ -15,6 +15,7 @@ public static class BodeAxes
         bool rangeOk = double.IsFinite(startHz) && double.IsFinite(stopHz) && startHz > 0 && stopHz > startHz;
         return new XAxis
         {
+            TickLabelOverflow = Plotly.Blazor.LayoutLib.XAxisLib.TickLabelOverflowEnum.Allow,
             Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log,
             Title = new XAxisTitle { Text = "frequency (Hz)" },
             ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI,

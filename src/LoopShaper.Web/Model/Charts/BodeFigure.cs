@@ -41,6 +41,12 @@ public static class BodeFigure
     /// <summary>Most points drawn per trace.</summary>
     public const int MaxPoints = 500;
 
+    /// <summary>Largest distance of the drawn magnitude from the computed one between drawn points, dB.</summary>
+    public const double MagnitudeToleranceDb = 0.05;
+
+    /// <summary>Largest distance of the drawn phase from the computed one between drawn points, degrees.</summary>
+    public const double PhaseToleranceDeg = 0.1;
+
     /// <summary>Builds the figure of an analysis, with a measured response beside the model when one is given.</summary>
     public static ChartFigure Build(DesignAnalysis analysis, BodeTraces show, PlacementTarget? selected, Core.Measurements.MeasurementComparison? measured = null)
     {
@@ -147,9 +153,10 @@ public static class BodeFigure
     private static void AddResponse(List<ITrace> data, FrequencyResponse r, string name, string color, string dash, decimal width, bool show)
     {
         // Magnitude to a thousandth of a dB and phase to a thousandth of a degree: far below what a chart can show.
-        // Long responses are thinned for drawing, keeping each bucket's extremes (resonance peaks survive).
-        var mag = ChartNumbers.Thinned(r.FrequencyHz, r.MagnitudeDb, MaxPoints, 1e-3);
-        var phase = ChartNumbers.Thinned(r.FrequencyHz, r.PhaseDeg, MaxPoints, 1e-3);
+        // Points a straight segment draws to within MagnitudeToleranceDb / PhaseToleranceDeg are dropped (a fraction
+        // of a pixel), which keeps each redraw small; extremes (resonance peaks) always survive.
+        var mag = ChartNumbers.Simplified(r.FrequencyHz, r.MagnitudeDb, MagnitudeToleranceDb, logX: true, MaxPoints, 1e-3);
+        var phase = ChartNumbers.Simplified(r.FrequencyHz, r.PhaseDeg, PhaseToleranceDeg, logX: true, MaxPoints, 1e-3);
         data.Add(new Scatter
         {
             Name = name,
@@ -347,24 +354,22 @@ public static class BodeFigure
         Layer = Plotly.Blazor.LayoutLib.ShapeLib.LayerEnum.Below,
     };
 
-    private static Annotation Note(double hz, double y, string yRef, string text, string color, int ax, int ay) => new()
-    {
-        XRef = "x",
-        X = Math.Log10(hz), // annotations on a log axis take log10 of the position (plotly.js convention)
-        YRef = yRef,
-        Y = y,
-        Text = text,
-        ShowArrow = true,
-        Arrowhead = 2,
-        ArrowColor = color,
-        Ax = ax,
-        Ay = ay,
-        BgColor = "rgba(255,255,255,0.92)",
-        BorderColor = color,
-        BorderWidth = 1.5m,
-        BorderPad = 4m,
-        Font = new AnnotationFont { Color = ChartPalette.Ink, Size = ChartPalette.FontSize },
-    };
+    private static Annotation Note(double hz, double y, string yRef, string text, string color, int ax, int ay) => Callout.Beside(
+        new Annotation
+        {
+            XRef = "x",
+            X = Math.Log10(hz), // annotations on a log axis take log10 of the position (plotly.js convention)
+            YRef = yRef,
+            Y = y,
+            Text = text,
+            BgColor = "rgba(255,255,255,0.92)",
+            BorderColor = color,
+            BorderWidth = 1.5m,
+            BorderPad = 4m,
+            Font = new AnnotationFont { Color = ChartPalette.Ink, Size = ChartPalette.FontSize },
+        },
+        right: ax > 0,
+        above: ay < 0);
 
     private static Layout BaseLayout((double Min, double Max) mag, (double Min, double Max) phase, List<Annotation> annotations, List<Shape> shapes, DesignAnalysis analysis)
     {
@@ -384,6 +389,7 @@ public static class BodeFigure
             [
                 new YAxis
                 {
+                    TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow,
                     Title = new AxisTitle { Text = "magnitude (dB)" },
                     Domain = [0.53m, 1m],
                     Range = [mag.Min, mag.Max],
@@ -396,6 +402,7 @@ public static class BodeFigure
                 },
                 new YAxis
                 {
+                    TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow,
                     Title = new AxisTitle { Text = "phase (deg)" },
                     Domain = [0m, 0.47m],
                     Range = [phase.Min, phase.Max],

@@ -78,6 +78,30 @@ public static class ChartNumbers
         return Series([.. keep.Select(i => x[i])], [.. keep.Select(i => y[i])], quantum);
     }
 
+    /// <summary>
+    /// A curve with the points a straight segment reproduces to within <paramref name="tolerance"/> dropped
+    /// (<see cref="CurveSimplifier"/>), thinned by <see cref="Thinned"/> if still longer than <paramref name="maxPoints"/>.
+    /// </summary>
+    public static (List<object?> X, List<object?> Y) Simplified(ImmutableArray<double> x, ImmutableArray<double> y, double tolerance, bool logX, int maxPoints, double? yQuantum = null)
+    {
+        var keep = CurveSimplifier.Keep(x, y, tolerance, logX);
+        if (keep.Count > maxPoints)
+        {
+            return Thinned(x, y, maxPoints, yQuantum);
+        }
+
+        var (lo, hi) = Extent(y, 0, 0);
+        double quantum = yQuantum ?? Math.Max(Math.Max(Math.Abs(lo), Math.Abs(hi)), 1e-300) * 1e-5;
+        return Series([.. keep.Select(i => x[i])], [.. keep.Select(i => y[i])], quantum);
+    }
+
+    /// <summary>The vertical tolerance for a time series drawn with <see cref="Simplified"/>: 2e-4 of its span.</summary>
+    public static double TimeTolerance(ImmutableArray<double> y)
+    {
+        var (lo, hi) = Extent(y, 0, 0);
+        return Math.Max(hi - lo, 1e-300) * 2e-4;
+    }
+
     /// <summary>True for a number Plotly can draw.</summary>
     public static bool IsDrawable(double? v) => v is double d && double.IsFinite(d);
 

@@ -81,7 +81,7 @@ public static class ClosedLoopFigure
             return;
         }
 
-        var series = ChartNumbers.Thinned(r.FrequencyHz, r.MagnitudeDb, MaxPoints, 1e-3);
+        var series = ChartNumbers.Simplified(r.FrequencyHz, r.MagnitudeDb, BodeFigure.MagnitudeToleranceDb, logX: true, MaxPoints, 1e-3);
         data.Add(new Scatter
         {
             Name = name,
@@ -97,6 +97,7 @@ public static class ClosedLoopFigure
 
     private static XAxis FrequencyAxis(string anchor, IList<object> domain, IList<object>? range) => new()
     {
+        TickLabelOverflow = Plotly.Blazor.LayoutLib.XAxisLib.TickLabelOverflowEnum.Allow,
         Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log,
         Title = new XAxisTitle { Text = "frequency (Hz)" },
         Domain = domain,
@@ -112,6 +113,7 @@ public static class ClosedLoopFigure
 
     private static YAxis LevelAxis(string anchor, string title) => new()
     {
+        TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow,
         Title = new YAxisTitle { Text = title },
         Anchor = anchor,
         GridColor = ChartPalette.Grid,

@@ -34,8 +34,8 @@ public static class CompareFigure
         layout.XAxis = [BodeAxes.Frequency(start, stop)];
         layout.YAxis =
         [
-            new YAxis { Title = new YAxisTitle { Text = "|T| (dB)" }, Domain = [0.53m, 1m], GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = ChartPalette.Ink },
-            new YAxis { Title = new YAxisTitle { Text = "phase of T (deg)" }, Domain = [0m, 0.47m], GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, DTick = 45 },
+            new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "|T| (dB)" }, Domain = [0.53m, 1m], GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = ChartPalette.Ink },
+            new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "phase of T (deg)" }, Domain = [0m, 0.47m], GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, DTick = 45 },
         ];
         layout.UiRevision = "compare-bode";
         return new ChartFigure(data, layout, []);
@@ -53,8 +53,8 @@ public static class CompareFigure
         layout.XAxis = [TimeAxis("y", [0m, 0.46m]), TimeAxis("y2", [0.56m, 1m])];
         layout.YAxis =
         [
-            new YAxis { Title = new YAxisTitle { Text = "load step (V)" }, Anchor = "x", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
-            new YAxis { Title = new YAxisTitle { Text = "reference step (V)" }, Anchor = "x2", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+            new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "load step (V)" }, Anchor = "x", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+            new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "reference step (V)" }, Anchor = "x2", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
         ];
         layout.UiRevision = "compare-steps";
         return new ChartFigure(data, layout, []);
@@ -67,8 +67,8 @@ public static class CompareFigure
             return;
         }
 
-        var mag = ChartNumbers.Thinned(r.FrequencyHz, r.MagnitudeDb, BodeFigure.MaxPoints, 1e-3);
-        var phase = ChartNumbers.Thinned(r.FrequencyHz, r.PhaseDeg, BodeFigure.MaxPoints, 1e-3);
+        var mag = ChartNumbers.Simplified(r.FrequencyHz, r.MagnitudeDb, BodeFigure.MagnitudeToleranceDb, logX: true, BodeFigure.MaxPoints, 1e-3);
+        var phase = ChartNumbers.Simplified(r.FrequencyHz, r.PhaseDeg, BodeFigure.PhaseToleranceDeg, logX: true, BodeFigure.MaxPoints, 1e-3);
         data.Add(new Scatter { Name = label, LegendGroup = label, Mode = ModeFlag.Lines, X = mag.X, Y = mag.Y, XAxis = "x", YAxis = "y", Line = new Line { Color = color, Width = 2.6m, Dash = dash }, HoverTemplate = label + ": %{y:.1f} dB at %{x:.4s}Hz<extra></extra>" });
         data.Add(new Scatter { Name = label + " phase", LegendGroup = label, ShowLegend = false, Mode = ModeFlag.Lines, X = phase.X, Y = phase.Y, XAxis = "x", YAxis = "y2", Line = new Line { Color = color, Width = 2.6m, Dash = dash }, HoverTemplate = label + ": %{y:.1f}° at %{x:.4s}Hz<extra></extra>" });
     }
@@ -80,7 +80,7 @@ public static class CompareFigure
             return;
         }
 
-        var series = ChartNumbers.Thinned(r.TimeS, r.Value, StepFigure.MaxPoints);
+        var series = ChartNumbers.Simplified(r.TimeS, r.Value, ChartNumbers.TimeTolerance(r.Value), logX: false, StepFigure.MaxPoints);
         data.Add(new Scatter { Name = name, Mode = ModeFlag.Lines, X = series.X, Y = series.Y, XAxis = x, YAxis = y, Line = new Line { Color = color, Width = 2.4m, Dash = dash }, HoverTemplate = name + ": %{y:.4s}V at %{x:.4s}s<extra></extra>" });
     }
 
@@ -97,6 +97,7 @@ public static class CompareFigure
 
     private static XAxis TimeAxis(string anchor, IList<object> domain) => new()
     {
+        TickLabelOverflow = Plotly.Blazor.LayoutLib.XAxisLib.TickLabelOverflowEnum.Allow,
         Title = new XAxisTitle { Text = "time (s)" },
         Domain = domain,
         Anchor = anchor,

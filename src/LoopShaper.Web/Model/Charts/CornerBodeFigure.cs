@@ -66,8 +66,8 @@ public static class CornerBodeFigure
             XAxis = [BodeAxes.Frequency(startHz, stopHz)],
             YAxis =
             [
-                new YAxis { Title = new AxisTitle { Text = "magnitude (dB)" }, Domain = [0.53m, 1m], Range = [mag.Min, mag.Max], DTick = 20, GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
-                new YAxis { Title = new AxisTitle { Text = "phase (deg)" }, Domain = [0m, 0.47m], Range = [phase.Min, phase.Max], DTick = 45, GridColor = ChartPalette.Grid, ZeroLine = false, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new AxisTitle { Text = "magnitude (dB)" }, Domain = [0.53m, 1m], Range = [mag.Min, mag.Max], DTick = 20, GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
+                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new AxisTitle { Text = "phase (deg)" }, Domain = [0m, 0.47m], Range = [phase.Min, phase.Max], DTick = 45, GridColor = ChartPalette.Grid, ZeroLine = false, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True },
             ],
             Shapes =
             [
@@ -79,8 +79,8 @@ public static class CornerBodeFigure
 
     private static void Add(List<ITrace> data, FrequencyResponse r, string name, string group, string legendName, bool legend, string color, string dash, decimal width, double opacity)
     {
-        var mag = ChartNumbers.Thinned(r.FrequencyHz, r.MagnitudeDb, MaxPoints, 1e-2);
-        var phase = ChartNumbers.Thinned(r.FrequencyHz, r.PhaseDeg, MaxPoints, 1e-2);
+        var mag = ChartNumbers.Simplified(r.FrequencyHz, r.MagnitudeDb, 2 * BodeFigure.MagnitudeToleranceDb, logX: true, MaxPoints, 1e-2);
+        var phase = ChartNumbers.Simplified(r.FrequencyHz, r.PhaseDeg, 2 * BodeFigure.PhaseToleranceDeg, logX: true, MaxPoints, 1e-2);
         data.Add(new Scatter
         {
             Name = legend ? legendName : name,

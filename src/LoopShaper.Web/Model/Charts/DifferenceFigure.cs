@@ -37,11 +37,11 @@ public static class DifferenceFigure
             Margin = new Margin { L = 78, R = 24, T = 14, B = 58 },
             ShowLegend = false,
             UiRevision = "difference",
-            XAxis = [new XAxis { Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log, Title = new XAxisTitle { Text = "frequency (Hz)" }, ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI, Anchor = "y2", GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink }],
+            XAxis = [new XAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.XAxisLib.TickLabelOverflowEnum.Allow, Type = Plotly.Blazor.LayoutLib.XAxisLib.TypeEnum.Log, Title = new XAxisTitle { Text = "frequency (Hz)" }, ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI, Anchor = "y2", GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink }],
             YAxis =
             [
-                new YAxis { Title = new AxisTitle { Text = "Δ gain (dB)" }, Domain = [0.53m, 1m], Range = RangeOf(d.GainDb, 2.0), GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
-                new YAxis { Title = new AxisTitle { Text = "Δ phase (deg)" }, Domain = [0m, 0.47m], Range = RangeOf(d.PhaseDeg, 10.0), GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
+                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new AxisTitle { Text = "Δ gain (dB)" }, Domain = [0.53m, 1m], Range = RangeOf(d.GainDb, 2.0), GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
+                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new AxisTitle { Text = "Δ phase (deg)" }, Domain = [0m, 0.47m], Range = RangeOf(d.PhaseDeg, 10.0), GridColor = ChartPalette.Grid, ZeroLineColor = ChartPalette.Ink, ShowLine = true, LineColor = ChartPalette.Ink },
             ],
         };
         return new ChartFigure(data, layout, []);

@@ -40,6 +40,7 @@ public static class HistogramFigure
             decimal left = k * 0.35m, right = left + 0.29m;
             xAxes.Add(new XAxis
             {
+                TickLabelOverflow = Plotly.Blazor.LayoutLib.XAxisLib.TickLabelOverflowEnum.Allow,
                 Title = new XAxisTitle { Text = title },
                 Domain = [left, right],
                 Anchor = y,
@@ -52,6 +53,7 @@ public static class HistogramFigure
             });
             yAxes.Add(new YAxis
             {
+                TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow,
                 Title = k == 0 ? new YAxisTitle { Text = "samples" } : null,
                 Anchor = x,
                 RangeMode = Plotly.Blazor.LayoutLib.YAxisLib.RangeModeEnum.ToZero,

@@ -58,8 +58,8 @@ public static class StepFigure
             XAxis = [Axis("x", [0m, 0.46m]), Axis("x2", [0.56m, 1m])],
             YAxis =
             [
-                new YAxis { Title = new YAxisTitle { Text = "output deviation (V)" }, Anchor = "x", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" },
-                new YAxis { Title = new YAxisTitle { Text = "output change (V)" }, Anchor = "x2", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" },
+                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "output deviation (V)" }, Anchor = "x", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" },
+                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "output change (V)" }, Anchor = "x2", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" },
             ],
             Annotations = notes,
             UiRevision = "steps",
@@ -69,7 +69,7 @@ public static class StepFigure
 
     private static void AddStep(List<ITrace> data, List<Annotation> notes, StepResponse r, string x, string y, string name, string color, bool isLoad)
     {
-        var series = ChartNumbers.Thinned(r.TimeS, r.Value, MaxPoints);
+        var series = ChartNumbers.Simplified(r.TimeS, r.Value, ChartNumbers.TimeTolerance(r.Value), logX: false, MaxPoints);
         data.Add(new Scatter
         {
             Name = name,
@@ -90,23 +90,21 @@ public static class StepFigure
             string text = isLoad
                 ? $"peak {Signed(m.PeakDeviation, "V")}"
                 : m.OvershootPct is double os ? $"overshoot {os.ToString("F1", CultureInfo.InvariantCulture)} %" : $"peak {Signed(m.PeakDeviation, "V")}";
-            notes.Add(new Annotation
-            {
-                XRef = x,
-                YRef = y,
-                X = m.PeakTimeS,
-                Y = m.PeakDeviation,
-                Text = text,
-                ShowArrow = true,
-                Arrowhead = 2,
-                ArrowColor = ChartPalette.Margin,
-                Ax = 60,
-                Ay = m.PeakDeviation < 0 ? 30 : -30,
-                BgColor = "rgba(255,255,255,0.92)",
-                BorderColor = ChartPalette.Margin,
-                BorderWidth = 1.5m,
-                BorderPad = 3m,
-            });
+            notes.Add(Callout.Beside(
+                new Annotation
+                {
+                    XRef = x,
+                    YRef = y,
+                    X = m.PeakTimeS,
+                    Y = m.PeakDeviation,
+                    Text = text,
+                    BgColor = "rgba(255,255,255,0.92)",
+                    BorderColor = ChartPalette.Margin,
+                    BorderWidth = 1.5m,
+                    BorderPad = 3m,
+                },
+                right: true,
+                above: m.PeakDeviation >= 0));
         }
 
         if (m.SettlingTimeS is double ts && double.IsFinite(ts) && r.TimeS.Length > 0)
@@ -171,6 +169,7 @@ public static class StepFigure
 
     private static XAxis Axis(string anchorOf, IList<object> domain) => new()
     {
+        TickLabelOverflow = Plotly.Blazor.LayoutLib.XAxisLib.TickLabelOverflowEnum.Allow,
         Title = new XAxisTitle { Text = "time (s)" },
         Domain = domain,
         Anchor = anchorOf == "x" ? "y" : "y2",

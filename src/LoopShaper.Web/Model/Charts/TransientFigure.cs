@@ -46,8 +46,8 @@ public static class TransientFigure
             var (name, t, unit, yTitle, missing) = panels[k];
             string x = k == 0 ? "x" : "x" + (k + 1), y = k == 0 ? "y" : "y" + (k + 1);
             decimal left = k * 0.355m, right = left + 0.29m;
-            xAxes.Add(new XAxis { Title = new XAxisTitle { Text = "time (s)" }, Domain = [left, right], Anchor = y, ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.XAxisLib.MirrorEnum.True, ZeroLine = false });
-            yAxes.Add(new YAxis { Title = new YAxisTitle { Text = yTitle }, Anchor = x, ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" });
+            xAxes.Add(new XAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.XAxisLib.TickLabelOverflowEnum.Allow, Title = new XAxisTitle { Text = "time (s)" }, Domain = [left, right], Anchor = y, ExponentFormat = Plotly.Blazor.LayoutLib.XAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.XAxisLib.MirrorEnum.True, ZeroLine = false });
+            yAxes.Add(new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = yTitle }, Anchor = x, ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" });
             if (t is null || t.Response.TimeS.Length < 2)
             {
                 notes.Add(Note(x + " domain", y + " domain", 0.5m, 0.5m, missing, ChartPalette.Margin));
@@ -55,7 +55,7 @@ public static class TransientFigure
             }
 
             string title = $"{name} {EngineeringFormat.Format(t.StepSize, unit)}" + (t.RiseTimeS > 0 ? $" in {EngineeringFormat.Format(t.RiseTimeS, "s")}" : string.Empty);
-            var series = ChartNumbers.Thinned(t.Response.TimeS, t.Response.Value, MaxPoints);
+            var series = ChartNumbers.Simplified(t.Response.TimeS, t.Response.Value, ChartNumbers.TimeTolerance(t.Response.Value), logX: false, MaxPoints);
             data.Add(new Scatter
             {
                 Name = title,
@@ -97,24 +97,22 @@ public static class TransientFigure
             if (double.IsFinite(peakT) && double.IsFinite(peakY))
             {
                 data.Add(new Scatter { Name = "peak", Mode = ModeFlag.Markers, X = [peakT], Y = [peakY], XAxis = x, YAxis = y, Marker = new Marker { Size = 10, Color = ChartPalette.Margin }, HoverInfo = HoverInfoFlag.Skip });
-                notes.Add(new Annotation
-                {
-                    XRef = x,
-                    YRef = y,
-                    X = peakT,
-                    Y = peakY,
-                    Text = peakText,
-                    ShowArrow = true,
-                    Arrowhead = 2,
-                    ArrowColor = ChartPalette.Margin,
-                    Ax = 50,
-                    Ay = peakY < final ? 28 : -28,
-                    BgColor = "rgba(255,255,255,0.92)",
-                    BorderColor = ChartPalette.Margin,
-                    BorderWidth = 1.2m,
-                    BorderPad = 2m,
-                    Font = new AnnotationFont { Size = 12.5m, Color = ChartPalette.Ink },
-                });
+                notes.Add(Callout.Beside(
+                    new Annotation
+                    {
+                        XRef = x,
+                        YRef = y,
+                        X = peakT,
+                        Y = peakY,
+                        Text = peakText,
+                        BgColor = "rgba(255,255,255,0.92)",
+                        BorderColor = ChartPalette.Margin,
+                        BorderWidth = 1.2m,
+                        BorderPad = 2m,
+                        Font = new AnnotationFont { Size = 12.5m, Color = ChartPalette.Ink },
+                    },
+                    right: true,
+                    above: peakY >= final));
             }
 
             if (t.RecoveryTimeS is double rt && double.IsFinite(rt))

@@ -3,27 +3,30 @@ using System.Net;
 using System.Net.Sockets;
 using System.Text;
 
-namespace LoopShaper.Browser.Tests;
+namespace LoopShaper.Tests.Shared;
 
 /// <summary>
 /// The web app started as a child process on a free loopback port (`dotnet LoopShaper.Web.dll --urls http://127.0.0.1:PORT`),
-/// in the Development environment so that static web assets are served from the build output's manifest, with its
-/// design library in a new temporary folder (never the user's own library).
+/// in the Development environment so that static web assets are served from the build output's manifest. Unless the
+/// arguments name a `--library`, its design library is a new temporary folder (never the user's own library), removed
+/// on dispose. Shared by the browser, library and benchmark projects (linked, not referenced).
 /// </summary>
 public sealed class WebAppProcess : IAsyncDisposable
 {
-    private readonly Process _process;
     private readonly StringBuilder _log = new();
 
-    private WebAppProcess(Process process, Uri baseUri, string libraryPath)
+    private WebAppProcess(Process process, Uri baseUri, string? temporaryLibrary)
     {
-        _process = process;
+        Process = process;
         BaseUri = baseUri;
-        LibraryPath = libraryPath;
+        LibraryPath = temporaryLibrary;
     }
 
-    /// <summary>The app's design library file, in a temporary folder removed on dispose.</summary>
-    public string LibraryPath { get; }
+    /// <summary>The child process.</summary>
+    public Process Process { get; }
+
+    /// <summary>The temporary design library the app was given, or null when the caller named its own.</summary>
+    public string? LibraryPath { get; }
 
     /// <summary>Where the app listens, ending in a slash.</summary>
     public Uri BaseUri { get; }
@@ -40,8 +43,8 @@ public sealed class WebAppProcess : IAsyncDisposable
         }
     }
 
-    /// <summary>Starts the app built beside this repository's tests and waits until it answers.</summary>
-    public static async Task<WebAppProcess> StartAsync()
+    /// <summary>Starts the app built beside this repository's tests with <paramref name="arguments"/> and waits until it answers.</summary>
+    public static async Task<WebAppProcess> StartAsync(params string[] arguments)
     {
         string dll = FindWebDll();
         int port = FreeLoopbackPort();
@@ -56,9 +59,19 @@ public sealed class WebAppProcess : IAsyncDisposable
         info.ArgumentList.Add(dll);
         info.ArgumentList.Add("--urls");
         info.ArgumentList.Add(url.ToString().TrimEnd('/'));
-        string library = Path.Combine(Directory.CreateTempSubdirectory("loopshaper-browser-library-").FullName, "library.db");
-        info.ArgumentList.Add("--library");
-        info.ArgumentList.Add(library);
+        string? library = null;
+        if (!arguments.Contains("--library"))
+        {
+            library = Path.Combine(Directory.CreateTempSubdirectory("loopshaper-test-library-").FullName, "library.db");
+            info.ArgumentList.Add("--library");
+            info.ArgumentList.Add(library);
+        }
+
+        foreach (string a in arguments)
+        {
+            info.ArgumentList.Add(a);
+        }
+
         info.Environment["ASPNETCORE_ENVIRONMENT"] = "Development";
         info.Environment["DOTNET_NOLOGO"] = "1";
         var process = Process.Start(info) ?? throw new InvalidOperationException("could not start " + dll);
@@ -99,36 +112,42 @@ public sealed class WebAppProcess : IAsyncDisposable
         throw new TimeoutException("The web app did not answer within 60 s:\n" + app.Log);
     }
 
+    /// <summary>Kills the process and everything it started, at once (SIGKILL: no shutdown code runs).</summary>
+    public async Task KillAsync()
+    {
+        if (!Process.HasExited)
+        {
+            Process.Kill(entireProcessTree: true);
+            await Process.WaitForExitAsync().ConfigureAwait(false);
+        }
+    }
+
     /// <inheritdoc />
     public async ValueTask DisposeAsync()
     {
-        if (!_process.HasExited)
+        await KillAsync().ConfigureAwait(false);
+        Process.Dispose();
+        if (LibraryPath is not null)
         {
-            _process.Kill(entireProcessTree: true);
-            await _process.WaitForExitAsync().ConfigureAwait(false);
-        }
-
-        _process.Dispose();
-        try
-        {
-            Directory.Delete(Path.GetDirectoryName(LibraryPath)!, recursive: true);
-        }
-        catch (IOException)
-        {
-            // Left to the OS's temp cleaning.
+            try
+            {
+                Directory.Delete(Path.GetDirectoryName(LibraryPath)!, recursive: true);
+            }
+            catch (IOException)
+            {
+                // Left to the OS's temp cleaning.
+            }
         }
     }
 
     private void Append(string? line)
     {
-        if (line is null)
+        if (line is not null)
         {
-            return;
-        }
-
-        lock (_log)
-        {
-            _log.AppendLine(line);
+            lock (_log)
+            {
+                _log.AppendLine(line);
+            }
         }
     }
 
@@ -151,12 +170,7 @@ public sealed class WebAppProcess : IAsyncDisposable
             root = root.Parent;
         }
 
-        if (root is null)
-        {
-            throw new InvalidOperationException("LoopShaper.sln not found above " + AppContext.BaseDirectory);
-        }
-
-        string dll = Path.Combine(root.FullName, "src", "LoopShaper.Web", "bin", configuration, tfm, "LoopShaper.Web.dll");
+        string dll = Path.Combine(root?.FullName ?? throw new InvalidOperationException("LoopShaper.sln not found above " + AppContext.BaseDirectory), "src", "LoopShaper.Web", "bin", configuration, tfm, "LoopShaper.Web.dll");
         return File.Exists(dll) ? dll : throw new FileNotFoundException("Build src/LoopShaper.Web first.", dll);
     }
 }
