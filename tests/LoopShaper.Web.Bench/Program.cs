@@ -105,6 +105,7 @@ for (int i = 0; i < changes; i++)
       const nb = window.__draws.bode.length, ns = window.__draws.step.length;
       const input = document.getElementById(id);
       const t0 = performance.now();
+      (window.__inputs = window.__inputs || []).push(t0);
       input.value = value;
       input.dispatchEvent(new Event('input', { bubbles: true }));
       const started = Date.now();
@@ -128,6 +129,21 @@ foreach (var g in byChart)
     var ms = g.Select(e => e.GetProperty("ms").GetDouble()).OrderBy(v => v).ToList();
     Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"Plotly.react on {g.Key}: median {ms[ms.Count / 2]:F1} ms over {ms.Count} redraws (browser only)"));
 }
+
+// Where the time of a change goes: from the input event to the start of the loop-gain chart's Plotly.react (the
+// server's analysis, render and the figure's trip over the circuit), the react itself, then the step chart's react.
+var split = await page.EvaluateAsync<double[]>(@"() => {
+  const med = a => { const s = [...a].sort((x, y) => x - y); return s.length ? s[Math.floor(s.length / 2)] : NaN; };
+  const toBode = [], gap = [];
+  for (const t0 of window.__inputs) {
+    const b = window.__react.find(r => r.id === 'bode-chart' && r.start >= t0);
+    const st = window.__react.find(r => r.id === 'step-chart' && r.start >= t0);
+    if (b) toBode.push(b.start - t0);
+    if (b && st) gap.push(st.start - (b.start + b.ms));
+  }
+  return [med(toBode), med(gap)];
+}");
+Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"median from input event to the loop-gain chart's react: {split[0]:F1} ms; from its end to the step chart's react: {split[1]:F1} ms"));
 
 times.Sort();
 double P(double q) => times[(int)Math.Ceiling(q * times.Count) - 1];
