@@ -89,6 +89,8 @@ await page.EvaluateAsync(@"() => {
     return r;
   };
   window.__draws = { bode: [], step: [] };
+  window.__revisions = [];
+  new MutationObserver(() => window.__revisions.push(performance.now())).observe(document.querySelector('.workspace'), { attributes: true, attributeFilter: ['data-revision'] });
   document.getElementById('bode-chart').on('plotly_afterplot', () => window.__draws.bode.push(performance.now()));
   document.getElementById('step-chart').on('plotly_afterplot', () => window.__draws.step.push(performance.now()));
 }");
@@ -105,6 +107,7 @@ for (int i = 0; i < changes; i++)
       const nb = window.__draws.bode.length, ns = window.__draws.step.length;
       const input = document.getElementById(id);
       const t0 = performance.now();
+      (window.__inputs = window.__inputs || []).push(t0);
       input.value = value;
       input.dispatchEvent(new Event('input', { bubbles: true }));
       const started = Date.now();
@@ -128,6 +131,23 @@ foreach (var g in byChart)
     var ms = g.Select(e => e.GetProperty("ms").GetDouble()).OrderBy(v => v).ToList();
     Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"Plotly.react on {g.Key}: median {ms[ms.Count / 2]:F1} ms over {ms.Count} redraws (browser only)"));
 }
+
+// Where the time of a change goes: from the input event to the start of the loop-gain chart's Plotly.react (the
+// server's analysis, render and the figure's trip over the circuit), the react itself, then the step chart's react.
+var split = await page.EvaluateAsync<double[]>(@"() => {
+  const med = a => { const s = [...a].sort((x, y) => x - y); return s.length ? s[Math.floor(s.length / 2)] : NaN; };
+  const toBode = [], gap = [], toDom = [];
+  for (const t0 of window.__inputs) {
+    const rv = window.__revisions.find(t => t >= t0);
+    if (rv) toDom.push(rv - t0);
+    const b = window.__react.find(r => r.id === 'bode-chart' && r.start >= t0);
+    const st = window.__react.find(r => r.id === 'step-chart' && r.start >= t0);
+    if (b) toBode.push(b.start - t0);
+    if (b && st) gap.push(st.start - (b.start + b.ms));
+  }
+  return [med(toBode), med(gap), med(toDom)];
+}");
+Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"median from input event to the page's new revision in the DOM: {split[2]:F1} ms; to the loop-gain chart's react: {split[0]:F1} ms; from its end to the step chart's react: {split[1]:F1} ms"));
 
 times.Sort();
 double P(double q) => times[(int)Math.Ceiling(q * times.Count) - 1];

@@ -162,16 +162,22 @@ public static class DesignAnalyzer
         int? pade = loop.PadeOrder(fc);
         double duration = a.StepDurationS ?? (20.0 / fc);
 
-        var refTf = loop.ReferenceToOutput(pade);
-        var refStep = Simulate(refTf, duration, a.StepSamples, a.ReferenceStepV, pade);
-        StepResponse? loadStep = null;
-        if (loop.ClosedOutputImpedance(pade) is TransferFunction zcl)
+        // The input and load corners and the load step do not depend on the rest: they run beside it (both cores).
+        var cornersTask = design.Plant is BuckPlant cb ? Task.Run(() => Corners(design, cb)) : Task.FromResult(ImmutableArray<CornerResult>.Empty);
+        var loadStepTask = Task.Run(() =>
         {
+            if (loop.ClosedOutputImpedance(pade) is not TransferFunction zcl)
+            {
+                return null;
+            }
+
             // A load step of +I draws current from the output: vout = -Zout_cl I.
             double rise = a.LoadStepSlewAPerS > 0 ? a.LoadStepA / a.LoadStepSlewAPerS : 0.0;
             var ls = StepSimulator.SimulateSlewed(zcl, rise, duration, a.StepSamples, -a.LoadStepA);
-            loadStep = pade is null ? ls : ls with { Delay = DelayTreatment.Pade, PadeOrder = pade };
-        }
+            return pade is null ? ls : ls with { Delay = DelayTreatment.Pade, PadeOrder = pade };
+        });
+        var refTf = loop.ReferenceToOutput(pade);
+        var refStep = Simulate(refTf, duration, a.StepSamples, a.ReferenceStepV, pade);
 
         var plantResponse = FrequencyResponse.Of(loop.Plant, grid);
         var compResponse = FrequencyResponse.Of(loop.Compensator, grid);
@@ -201,7 +207,8 @@ public static class DesignAnalyzer
             idealMargins = MarginAnalyzer.Analyze(gi.Multiply(loop.Plant), a.StartHz, a.StopHz);
         }
 
-        var corners = design.Plant is BuckPlant cb ? Corners(design, cb) : [];
+        var corners = Joined(cornersTask);
+        var loadStep = Joined(loadStepTask);
         var warnings = Warnings(design, op, margins, built, corners);
         var criteria = Criteria(design, op, margins, refStep, loadStep);
         return new DesignAnalysis
@@ -279,6 +286,9 @@ public static class DesignAnalyzer
 
         return [.. result];
     }
+
+    /// <summary>The result of a task run beside the analysis; its exception, if any, as thrown (not wrapped).</summary>
+    private static T Joined<T>(Task<T> task) => task.GetAwaiter().GetResult();
 
     private static StepResponse Simulate(TransferFunction h, double duration, int samples, double amplitude, int? pade)
     {

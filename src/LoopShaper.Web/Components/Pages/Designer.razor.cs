@@ -9,12 +9,13 @@ namespace LoopShaper.Web.Components.Pages;
 /// The workspace: inputs on the left, the summary, the loop-gain chart, the step responses and the derivations on
 /// the right. Every change recomputes through the core; this page only moves text between the form and the panels.
 /// </summary>
-public sealed partial class Designer : IDisposable
+public sealed partial class Designer : IDisposable, IHandleEvent
 {
     /// <summary>Name of the top-bar section the file actions render into.</summary>
     public const string TopBarSection = "topbar-actions";
 
     private bool _interactive;
+    private int _renders;
     private string? _linkError;
     private MeasuredSet? _measured;
 
@@ -65,6 +66,28 @@ public sealed partial class Designer : IDisposable
         Parts.Dispose();
         Corners.Changed -= OnCornersChanged;
         Corners.Dispose();
+    }
+
+    /// <summary>
+    /// An event renders the page once, when its handler has finished, and not at all when the handler's own workspace
+    /// change has rendered it already. (The default renders after the handler's synchronous part too: the whole page,
+    /// every panel and chart parameter, with the old analysis, while the new one is being computed.)
+    /// </summary>
+    async Task IHandleEvent.HandleEventAsync(EventCallbackWorkItem callback, object? arg)
+    {
+        int before = _renders;
+        await callback.InvokeAsync(arg);
+        if (_renders == before)
+        {
+            StateHasChanged();
+        }
+    }
+
+    /// <inheritdoc />
+    protected override bool ShouldRender()
+    {
+        _renders++;
+        return true;
     }
 
     /// <inheritdoc />

@@ -152,6 +152,13 @@ public static class BodeFigure
 
     private static void AddResponse(List<ITrace> data, FrequencyResponse r, string name, string color, string dash, decimal width, bool show)
     {
+        // A trace switched off is not sent at all (switching it on rebuilds the figure): every trace costs a redraw
+        // its share of serialisation on the server and of plotly.js's work in the browser.
+        if (!show)
+        {
+            return;
+        }
+
         // Magnitude to a thousandth of a dB and phase to a thousandth of a degree: far below what a chart can show.
         // Points a straight segment draws to within MagnitudeToleranceDb / PhaseToleranceDeg are dropped (a fraction
         // of a pixel), which keeps each redraw small; extremes (resonance peaks) always survive.
@@ -167,7 +174,6 @@ public static class BodeFigure
             XAxis = "x",
             YAxis = "y",
             Line = new Line { Color = color, Width = width, Dash = dash },
-            Visible = show ? VisibleEnum.True : VisibleEnum.False,
             HoverTemplate = name + ": %{y:.1f} dB at %{x:.4s}Hz<extra></extra>",
         });
         data.Add(new Scatter
@@ -181,7 +187,6 @@ public static class BodeFigure
             XAxis = "x",
             YAxis = "y2",
             Line = new Line { Color = color, Width = width, Dash = dash },
-            Visible = show ? VisibleEnum.True : VisibleEnum.False,
             HoverTemplate = name + ": %{y:.1f}° at %{x:.4s}Hz<extra></extra>",
         });
     }
