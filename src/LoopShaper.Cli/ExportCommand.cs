@@ -62,8 +62,8 @@ internal static class ExportCommand
                 }
 
                 string? otaText = wantParts ? PartsListCsv.Write(ota.Synthesis)
-                    : wantLoop ? LoopNetlist(ota.BuiltDesign, ota.Synthesis.SnappedNetwork, path, error)
-                    : SpiceNetlist.Compensator(ota.Synthesis.SnappedNetwork, divider!, design.Name);
+                    : wantLoop ? LoopNetlist(ota.BuiltDesign, ota.Synthesis.ChosenNetwork, path, error)
+                    : SpiceNetlist.Compensator(ota.Synthesis.ChosenNetwork, divider!, design.Name);
                 return otaText is not null && DesignLoader.Emit(otaText, parse.GetValue(outFile), output, error) ? ExitCodes.Success : ExitCodes.InvalidInput;
             }
 

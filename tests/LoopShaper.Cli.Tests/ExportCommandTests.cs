@@ -197,7 +197,8 @@ public class ExportCommandTests
         Assert.Equal(0, parts.ExitCode);
         var e = PartsListCsv.Parse(parts.Output).ToDictionary(x => x.Designator);
         Assert.Equal(["C1", "C2", "R2"], e.Keys.Order(StringComparer.Ordinal));
-        foreach (var p in expected!.Synthesis.Parts)
+        // The parts to build: the neighbour search's (on by default), which keeps the snapped values here at +-2 steps.
+        foreach (var p in expected!.Synthesis.ChosenParts)
         {
             Assert.Equal(p.Value.Value, e[p.Designator].Value, 1e-12 * p.Value.Value);
             Assert.Equal(p.Kind, e[p.Designator].Kind);
@@ -224,6 +225,35 @@ public class ExportCommandTests
         var loop = await CliRun.Of("export", example, "--netlist", "--loop");
         Assert.Equal(0, loop.ExitCode);
         Assert.Contains(loop.Output.Split('\n'), l => l == $"R2 comp n2 {built.R2Ohm.ToString("R", System.Globalization.CultureInfo.InvariantCulture)}");
+    }
+
+    [Fact]
+    public async Task An_ota_export_honours_the_search_options()
+    {
+        // --search-steps and --no-search steer the OTA export as they steer the op-amp one: the parts list and the
+        // netlist carry the chosen values of the core's synthesis with the same options.
+        string example = RepoFiles.Example("pol-12v-to-3v3-peak-current-mode.json");
+        var design = DesignFile.Read(File.ReadAllText(example)).Design!;
+        var o = DesignSynthesizer.OptionsOf(design);
+        Assert.True(DesignSynthesizer.TrySynthesizeOta(design, o with { SearchSteps = 3 }, out var wide, out _));
+        Assert.True(DesignSynthesizer.TrySynthesizeOta(design, o with { SearchNeighbours = false }, out var plain, out _));
+        Assert.NotNull(wide!.Synthesis.Search);
+        Assert.Null(plain!.Synthesis.Search);
+
+        foreach (var (args, expected) in new[] { (new[] { "--search-steps", "3" }, wide), (["--no-search"], plain) })
+        {
+            var run = await CliRun.Of(["export", example, "--parts", .. args]);
+            Assert.Equal(0, run.ExitCode);
+            var e = PartsListCsv.Parse(run.Output).ToDictionary(x => x.Designator);
+            Assert.All(expected.Synthesis.ChosenParts, p => Assert.Equal(p.Value.Value, e[p.Designator].Value, 1e-12 * p.Value.Value));
+
+            var netlist = await CliRun.Of(["export", example, "--netlist", .. args]);
+            Assert.Equal(0, netlist.ExitCode);
+            Compare(expected.Synthesis.ChosenNetwork.TransferFunction(), Ngspice.RunAc(netlist.Output, "v(gc)"), $"OTA example {string.Join(' ', args)}");
+        }
+
+        // Wider steps move a part on this example (the search finds a closer loop), so the two exports differ.
+        Assert.NotEqual(wide.Synthesis.ChosenNetwork, plain.Synthesis.ChosenNetwork);
     }
 
     public static TheoryData<string> OpAmpExamples() => SynthesizeCommandTests.OpAmpExamples();

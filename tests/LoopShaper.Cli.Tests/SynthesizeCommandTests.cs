@@ -275,6 +275,39 @@ public class SynthesizeCommandTests
     }
 
     [Fact]
+    public async Task An_ota_synthesis_honours_the_search_options()
+    {
+        // The OTA network searches R2, C1 and C2 (gm and the divider fixed): 3 free parts, (2 steps + 1)^3 combinations.
+        string example = RepoFiles.Example("pol-12v-to-3v3-peak-current-mode.json");
+        var design = DesignFile.Read(File.ReadAllText(example)).Design!;
+        Assert.True(DesignSynthesizer.TrySynthesizeOta(design, DesignSynthesizer.OptionsOf(design) with { SearchSteps = 3 }, out var expected, out _));
+        var search = expected!.Synthesis.Search!;
+
+        using var wide = await Json("synthesize", example, "--search-steps", "3");
+        var r = wide.RootElement;
+        Assert.True(r.GetProperty("searchNeighbours").GetBoolean());
+        Assert.Equal(3, r.GetProperty("searchSteps").GetInt32());
+        Assert.True(r.GetProperty("searchCandidates").GetInt32() == 343, "3 free parts, +-3 steps each: 7^3 combinations");
+        Assert.Equal(search.Performance.CrossoverHz!.Value, r.GetProperty("searched").GetProperty("crossoverHz").GetDouble(), 1e-9 * search.Performance.CrossoverHz.Value);
+        Assert.Equal(search.Performance.PhaseMarginDeg!.Value, r.GetProperty("searched").GetProperty("phaseMarginDeg").GetDouble(), 1e-9);
+        foreach (var (p, q) in r.GetProperty("parts").EnumerateArray().Zip(search.Parts))
+        {
+            Assert.Equal(q.Designator, p.GetProperty("designator").GetString());
+            Assert.Equal(q.Value.Value, p.GetProperty("chosenValue").GetDouble(), 1e-12 * q.Value.Value);
+        }
+
+        Assert.Contains(r.GetProperty("derivations").EnumerateArray(), d => d.GetProperty("quantity").GetString() == "Neighbour search");
+        var text = await CliRun.Of("synthesize", example, "--search-steps", "3");
+        Assert.Contains("searched", text.Output, StringComparison.Ordinal);
+        Assert.Contains("chosen", text.Output, StringComparison.Ordinal);
+
+        using var off = await Json("synthesize", example, "--no-search");
+        Assert.False(off.RootElement.GetProperty("searchNeighbours").GetBoolean());
+        Assert.Equal(JsonValueKind.Null, off.RootElement.GetProperty("searched").ValueKind);
+        Assert.DoesNotContain(off.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("neighbour search", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public async Task The_criteria_are_judged_with_the_design_s_own_op_amp()
     {
         // The DCM sensor example names a finite-gain op-amp (A0 = 31.6k, GBW = 3 MHz): the built design keeps it.

@@ -90,6 +90,71 @@ public class OtaSynthesisTests
         Assert.All(r.Parts, p => Assert.Equal(p.Value.Value, back[p.Designator].Value, 1e-12 * p.Value.Value));
     }
 
+    /// <summary>Searches of our own on the current-mode stand-in plant: crossover Hz, phase margin deg, resistor series, capacitor series, steps.</summary>
+    public static TheoryData<double, double, ESeries, ESeries, int> Searches => new()
+    {
+        { 30e3, 60.0, ESeries.E24, ESeries.E6, 1 },
+        { 20e3, 70.0, ESeries.E24, ESeries.E6, 2 },
+        { 50e3, 50.0, ESeries.E96, ESeries.E12, 3 },
+    };
+
+    [Theory]
+    [MemberData(nameof(Searches))]
+    public void Neighbour_search_is_never_farther_from_the_targets_than_snapping_and_stays_within_its_steps(double fc, double pm, ESeries resistors, ESeries capacitors, int steps)
+    {
+        // Venable's K factor (Venable 1983) places the Type II; R2, C1, C2 follow with gm = 1 mS fixed, then the search.
+        var plant = TestPlants.CurrentModePlant();
+        var s = PlacementAdvisor.Suggest(plant, new PlacementRequest(PlacementMethod.KFactor, fc, pm, CompensatorType.TypeII, 600e3));
+        var o = new SynthesisOptions { ResistorSeries = resistors, CapacitorSeries = capacitors, SearchNeighbours = true, SearchSteps = steps, StopHz = 10e6 };
+        var r = OtaNetworkSynthesizer.Synthesize(plant, s.Placement, Ota, o);
+        Assert.NotNull(r.Search);
+        var search = r.Search!;
+        Assert.Equal((int)Math.Pow((2 * steps) + 1, 3), search.CandidatesTried); // R2, C1, C2 free
+
+        // Distances computed here from full margin analyses of the snapped and the chosen network, not taken from the
+        // search: distance = (100 ln(fc / fc0))^2 + (PM - PM0)^2 with the default scales of 1 % and 1 deg.
+        double Distance(TransconductanceNetwork n)
+        {
+            var m = MarginAnalyzer.Analyze(n.TransferFunction().Multiply(plant), 10, 10e6);
+            double a = 100 * Math.Log(m.CrossoverHz!.Value / r.TargetCrossoverHz), b = m.PhaseMarginDeg!.Value - r.TargetPhaseMarginDeg;
+            return (a * a) + (b * b);
+        }
+
+        double snapped = Distance(r.SnappedNetwork), chosen = Distance(r.ChosenNetwork);
+        Assert.True(chosen <= snapped, $"searched {chosen} vs snapped {snapped}");
+        Assert.Equal(snapped, search.SnappedDistance, 1e-9 * Math.Max(1, snapped));
+        Assert.Equal(chosen, search.Distance, 1e-9 * Math.Max(1, chosen));
+
+        // Every chosen value is a member of its series within +-steps ladder positions of the snapped one; the ladder is
+        // rebuilt here from IEC 60063 positions (StandardValues.ValueAt) around a fresh snap of the ideal value.
+        Assert.Equal(["R2", "C1", "C2"], search.Parts.Select(p => p.Designator));
+        foreach (var (p, q) in r.Parts.Zip(search.Parts))
+        {
+            var series = p.Kind == PartKind.Resistor ? resistors : capacitors;
+            var fresh = StandardValues.Snap(p.Value.IdealValue, series);
+            var allowed = Enumerable.Range(-steps, (2 * steps) + 1).Select(k => StandardValues.ValueAt(series, fresh.Index + k)).ToArray();
+            Assert.Equal(series, q.Value.Series);
+            Assert.True(StandardValues.IsPreferred(q.Value.Value, series), $"{q.Designator} = {q.Value.Value} is not an {series} value");
+            Assert.Contains(allowed, v => Math.Abs(v - q.Value.Value) <= 1e-12 * v);
+            Assert.Equal(p.Value.IdealValue, q.Value.IdealValue);
+        }
+
+        // gm and Ro are the anchors: the chosen network keeps the amplifier; its values are the chosen parts'.
+        Assert.Same(search.Network, r.ChosenNetwork);
+        Assert.Equal(Ota, r.ChosenNetwork.Amplifier);
+        Assert.Equal(search.Parts.Single(p => p.Designator == "C2").Value.Value, r.ChosenNetwork.C2F);
+        Assert.Equal(search.Performance, r.Chosen);
+        Assert.Contains(r.Derivations, d => d.Quantity == "Neighbour search" && d.Formula.Contains("gm and the divider fixed", StringComparison.Ordinal));
+        Assert.Contains(r.Derivations, d => d.Quantity == "Loop with the searched parts");
+        Assert.DoesNotContain(r.Warnings, w => w.Contains("op-amp networks only", StringComparison.Ordinal) && w.Contains("neighbour", StringComparison.Ordinal));
+
+        // Without the search the snapped parts are the chosen ones.
+        var plain = OtaNetworkSynthesizer.Synthesize(plant, s.Placement, Ota, o with { SearchNeighbours = false });
+        Assert.Null(plain.Search);
+        Assert.Equal(plain.SnappedNetwork, plain.ChosenNetwork);
+        Assert.DoesNotContain(plain.Derivations, d => d.Quantity == "Neighbour search");
+    }
+
     [Fact]
     public void Impractical_values_and_bad_placements_are_named()
     {

@@ -86,8 +86,9 @@ public sealed class PartsPanelTests : BunitContext
     public async Task An_ota_compensator_gets_its_parts_anchored_on_gm_and_the_divider()
     {
         var (cut, workspace) = await RenderPanel(CurrentModeOta);
-        // gm and the divider anchor an OTA network: no R1 field, no neighbour search.
-        Assert.Empty(cut.FindAll("[data-search-neighbours]"));
+        // gm and the divider anchor an OTA network: no R1 field; the neighbour search over R2, C1, C2 is offered (on by
+        // default, as for the op-amp networks).
+        Assert.True(cut.Find("[data-search-neighbours]").HasAttribute("checked"));
         Assert.DoesNotContain("R1 (empty: divider top)", cut.Markup, StringComparison.Ordinal);
         await cut.Find("[data-choose-parts]").ClickAsync(new MouseEventArgs());
         await cut.WaitForAssertionAsync(() => Assert.Equal("ready", cut.Find("[data-parts-panel]").GetAttribute("data-parts-panel")), TimeSpan.FromSeconds(20));
@@ -110,21 +111,56 @@ public sealed class PartsPanelTests : BunitContext
         Assert.Equal("3.30 nF", cut.Find("[data-part='C1'] [data-cell='snapped']").TextContent);
         Assert.Equal("47.0 pF", cut.Find("[data-part='C2'] [data-cell='snapped']").TextContent);
 
-        // The anchor names gm and the divider; ideal against snapped loop, no searched column.
+        // The anchor names gm and the divider; ideal, snapped and searched loops side by side (the search is on).
         var anchor = cut.Find("[data-parts-anchor]");
         Assert.Equal("gm", anchor.GetAttribute("data-parts-anchor"));
         Assert.Contains("gm = 1.00 mS", anchor.TextContent, StringComparison.Ordinal);
-        Assert.Empty(cut.FindAll("[data-cell='chosen']"));
+        Assert.Equal(3, cut.FindAll("[data-cell='chosen']").Count);
         var crossover = cut.FindAll("[data-performance='crossover'] td").Select(c => c.TextContent).ToList();
-        Assert.Equal([Format(s.Ideal.CrossoverHz!.Value, "Hz"), Format(s.Snapped.CrossoverHz!.Value, "Hz")], crossover);
+        Assert.Equal([Format(s.Ideal.CrossoverHz!.Value, "Hz"), Format(s.Snapped.CrossoverHz!.Value, "Hz"), Format(s.Search!.Performance.CrossoverHz!.Value, "Hz")], crossover);
 
-        // Downloads: the parts list, the OTA network, and the loop as the state-space peak current-mode plant.
+        // Downloads: the parts list, the OTA network, and the loop as the state-space peak current-mode plant, all with
+        // the chosen parts.
         var entries = PartsListCsv.Parse(Decode(cut.Find("[data-download-parts]").GetAttribute("href")!, "text/csv"));
-        Assert.Equal(s.Parts.Select(p => (p.Designator, p.Value.Value)), entries.Select(e => (e.Designator, e.Value)));
+        Assert.Equal(s.ChosenParts.Select(p => (p.Designator, p.Value.Value)), entries.Select(e => (e.Designator, e.Value)));
         var divider = ((Core.PlantModels.BuckPlant)expected.BuiltDesign.Plant).Feedback;
-        Assert.Equal(SpiceNetlist.Compensator(s.SnappedNetwork, divider, CurrentModeOta.Name), Decode(cut.Find("[data-download-netlist]").GetAttribute("href")!, "text/plain"));
+        Assert.Equal(SpiceNetlist.Compensator(s.ChosenNetwork, divider, CurrentModeOta.Name), Decode(cut.Find("[data-download-netlist]").GetAttribute("href")!, "text/plain"));
         string loop = Decode(cut.Find("[data-download-loop-netlist]").GetAttribute("href")!, "text/plain");
         Assert.StartsWith("* LoopShaper loop netlist: state-space realisation of the peak current-mode CCM plant with a Type II OTA compensator", loop, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task An_ota_network_shows_the_chosen_columns_while_the_search_is_on()
+    {
+        // Three steps each way (the design's synthesis.searchSteps) let the search move C1 and C2 on this example.
+        var design = CurrentModeOta with { Synthesis = new SynthesisSettings { SearchSteps = 3 } };
+        var (cut, workspace) = await RenderPanel(design);
+        await cut.Find("[data-choose-parts]").ClickAsync(new MouseEventArgs());
+        await cut.WaitForAssertionAsync(() => Assert.Equal("ready", cut.Find("[data-parts-panel]").GetAttribute("data-parts-panel")), TimeSpan.FromSeconds(20));
+
+        Assert.True(DesignSynthesizer.TrySynthesizeOta(workspace.Form.Build(), DesignSynthesizer.OptionsOf(design), out var expected, out _));
+        var s = expected!.Synthesis;
+        Assert.NotNull(s.Search);
+        Assert.Contains(cut.FindAll(".parts-table th"), h => h.TextContent == "Chosen");
+        Assert.Contains(cut.FindAll(".perf-table th"), h => h.TextContent == "searched");
+        foreach (var c in s.ChosenParts)
+        {
+            var row = cut.Find($"[data-part='{c.Designator}']");
+            Assert.Equal(Format(c.Value.Value, c.Unit, 3), row.QuerySelector("[data-cell='chosen']")!.TextContent);
+            Assert.Equal(c.Value.ErrorPct.ToString("+0.00;-0.00;0.00", CultureInfo.InvariantCulture) + " %", row.QuerySelector("[data-cell='chosen-error']")!.TextContent);
+        }
+
+        // The search moved a part here, so the chosen column is not the snapped one.
+        Assert.Contains(s.Parts.Zip(s.ChosenParts), x => x.First.Value.Value != x.Second.Value.Value);
+        var pm = cut.FindAll("[data-performance='phase-margin'] td").Select(c => c.TextContent).ToList();
+        Assert.Equal(s.Search!.Performance.PhaseMarginDeg!.Value.ToString("F1", CultureInfo.InvariantCulture) + " °", pm[2]);
+
+        // Unticked: the snapped values stand, the chosen columns go, and the design keeps the setting.
+        await cut.Find("[data-search-neighbours]").ChangeAsync(new ChangeEventArgs { Value = false });
+        await cut.WaitForAssertionAsync(() => Assert.Empty(cut.FindAll("[data-cell='chosen']")), TimeSpan.FromSeconds(20));
+        Assert.DoesNotContain(cut.FindAll(".parts-table th"), h => h.TextContent == "Chosen");
+        Assert.False(workspace.Form.Build().Synthesis!.SearchNeighbours);
+        Assert.Equal(2, cut.FindAll("[data-performance='crossover'] td").Count);
     }
 
     [Fact]

@@ -21,8 +21,8 @@ public static class PartsListCsv
     /// <summary>Writes the parts list of a synthesis (the parts to build).</summary>
     public static string Write(NetworkSynthesis synthesis) => Write(synthesis.ChosenParts.Select(PartsListEntry.From));
 
-    /// <summary>The parts list of an OTA synthesis: its snapped parts.</summary>
-    public static string Write(OtaNetworkSynthesis synthesis) => Write(synthesis.Parts.Select(PartsListEntry.From));
+    /// <summary>The parts list of an OTA synthesis (the parts to build).</summary>
+    public static string Write(OtaNetworkSynthesis synthesis) => Write(synthesis.ChosenParts.Select(PartsListEntry.From));
 
     /// <summary>Writes a parts list.</summary>
     public static string Write(IEnumerable<PartsListEntry> entries)

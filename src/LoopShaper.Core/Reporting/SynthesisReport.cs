@@ -78,23 +78,40 @@ public sealed record SynthesisReport
     {
         ArgumentNullException.ThrowIfNull(result);
         var s = result.Synthesis;
-        var chosen = s.ChosenParts.ToDictionary(p => p.Designator, StringComparer.Ordinal);
-        var built = result.BuiltAnalysis;
-        var warnings = s.Warnings
+        return Of(result.Design, result.Options, s.IdealNetwork.Type, s.Parts, s.ChosenParts, s.Ideal, s.Snapped, s.Search?.Performance, s.Search?.CandidatesTried,
+            s.TargetCrossoverHz, s.TargetPhaseMarginDeg, s.Warnings, s.Derivations, result.BuiltAnalysis);
+    }
+
+    /// <summary>The report of an OTA design synthesis.</summary>
+    public static SynthesisReport From(OtaDesignSynthesis result)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        var s = result.Synthesis;
+        return Of(result.Design, result.Options, s.IdealNetwork.Type, s.Parts, s.ChosenParts, s.Ideal, s.Snapped, s.Search?.Performance, s.Search?.CandidatesTried,
+            s.TargetCrossoverHz, s.TargetPhaseMarginDeg, s.Warnings, s.Derivations, result.BuiltAnalysis);
+    }
+
+    private static SynthesisReport Of(
+        Design.LoopDesign design, SynthesisOptions options, Compensators.CompensatorType type, ImmutableArray<SynthesizedPart> parts, ImmutableArray<SynthesizedPart> chosenParts,
+        LoopPerformance ideal, LoopPerformance snapped, LoopPerformance? searched, int? candidates, double targetCrossoverHz, double targetPhaseMarginDeg,
+        ImmutableArray<string> synthesisWarnings, ImmutableArray<Derivation> derivations, Design.DesignAnalysis built)
+    {
+        var chosen = chosenParts.ToDictionary(p => p.Designator, StringComparer.Ordinal);
+        var warnings = synthesisWarnings
             .Concat(built.Issues.Where(i => i.Severity == Validation.Severity.Warning).Select(i => $"{IssueReport.PathOf(i.Field)}: {i.Message}"))
             .Concat(built.Warnings)
             .Distinct(StringComparer.Ordinal);
         return new SynthesisReport
         {
-            Name = result.Design.Name,
-            CompensatorType = TypeWord(s.IdealNetwork.Type),
-            ResistorSeries = result.Options.ResistorSeries.ToString(),
-            CapacitorSeries = result.Options.CapacitorSeries.ToString(),
-            SearchNeighbours = result.Options.SearchNeighbours,
-            SearchSteps = result.Options.SearchSteps,
-            TargetCrossoverHz = AnalysisReport.Finite(s.TargetCrossoverHz),
-            TargetPhaseMarginDeg = AnalysisReport.Finite(s.TargetPhaseMarginDeg),
-            Parts = [.. s.Parts.Select(p =>
+            Name = design.Name,
+            CompensatorType = TypeWord(type),
+            ResistorSeries = options.ResistorSeries.ToString(),
+            CapacitorSeries = options.CapacitorSeries.ToString(),
+            SearchNeighbours = options.SearchNeighbours,
+            SearchSteps = options.SearchSteps,
+            TargetCrossoverHz = AnalysisReport.Finite(targetCrossoverHz),
+            TargetPhaseMarginDeg = AnalysisReport.Finite(targetPhaseMarginDeg),
+            Parts = [.. parts.Select(p =>
             {
                 var c = chosen[p.Designator];
                 return new SynthesisPartReport(
@@ -110,57 +127,14 @@ public sealed record SynthesisReport
                     c.Value.Series.ToString(),
                     AnalysisReport.Finite(c.Tolerance.TolerancePct));
             })],
-            Ideal = PerformanceOf(s.Ideal),
-            Snapped = PerformanceOf(s.Snapped),
-            Searched = s.Search is { } r ? PerformanceOf(r.Performance) : null,
-            SearchCandidates = s.Search?.CandidatesTried,
-            MeetsCriteria = result.MeetsCriteria,
+            Ideal = PerformanceOf(ideal),
+            Snapped = PerformanceOf(snapped),
+            Searched = searched is { } r ? PerformanceOf(r) : null,
+            SearchCandidates = candidates,
+            MeetsCriteria = built.MeetsCriteria,
             Criteria = [.. built.Criteria.Select(c => new CriterionReport(c.Name, IssueReport.PathOf(c.Field), c.Passed, c.Actual, c.Limit))],
             Warnings = [.. warnings],
-            Derivations = [.. s.Derivations.Select(DerivationOf)],
-        };
-    }
-
-    /// <summary>The report of an OTA design synthesis (no neighbour search: the snapped parts are the chosen ones).</summary>
-    public static SynthesisReport From(OtaDesignSynthesis result)
-    {
-        ArgumentNullException.ThrowIfNull(result);
-        var s = result.Synthesis;
-        var built = result.BuiltAnalysis;
-        var warnings = s.Warnings
-            .Concat(built.Issues.Where(i => i.Severity == Validation.Severity.Warning).Select(i => $"{IssueReport.PathOf(i.Field)}: {i.Message}"))
-            .Concat(built.Warnings)
-            .Distinct(StringComparer.Ordinal);
-        return new SynthesisReport
-        {
-            Name = result.Design.Name,
-            CompensatorType = TypeWord(s.IdealNetwork.Type),
-            ResistorSeries = result.Options.ResistorSeries.ToString(),
-            CapacitorSeries = result.Options.CapacitorSeries.ToString(),
-            SearchNeighbours = false,
-            SearchSteps = result.Options.SearchSteps,
-            TargetCrossoverHz = AnalysisReport.Finite(s.TargetCrossoverHz),
-            TargetPhaseMarginDeg = AnalysisReport.Finite(s.TargetPhaseMarginDeg),
-            Parts = [.. s.Parts.Select(p => new SynthesisPartReport(
-                p.Designator,
-                p.Kind == PartKind.Resistor ? "resistor" : "capacitor",
-                p.Unit,
-                p.Role,
-                AnalysisReport.Finite(p.Value.IdealValue),
-                AnalysisReport.Finite(p.Value.Value),
-                AnalysisReport.Finite(p.Value.ErrorPct),
-                AnalysisReport.Finite(p.Value.Value),
-                AnalysisReport.Finite(p.Value.ErrorPct),
-                p.Value.Series.ToString(),
-                AnalysisReport.Finite(p.Tolerance.TolerancePct)))],
-            Ideal = PerformanceOf(s.Ideal),
-            Snapped = PerformanceOf(s.Snapped),
-            Searched = null,
-            SearchCandidates = null,
-            MeetsCriteria = result.MeetsCriteria,
-            Criteria = [.. built.Criteria.Select(c => new CriterionReport(c.Name, IssueReport.PathOf(c.Field), c.Passed, c.Actual, c.Limit))],
-            Warnings = [.. warnings],
-            Derivations = [.. s.Derivations.Select(DerivationOf)],
+            Derivations = [.. derivations.Select(DerivationOf)],
         };
     }
 

@@ -59,7 +59,8 @@ public static class DesignSynthesizer
     /// <summary>
     /// Synthesises the OTA Type II network of a design whose compensator is a <see cref="TransconductanceNetwork"/>
     /// (gm and Ro from its amplifier, the placement its parts give with Ro infinite) and re-analyses the design with the
-    /// snapped parts; false with the reasons (field-named) otherwise.
+    /// parts to build (the searched ones when the neighbour search ran, else the snapped ones); false with the reasons
+    /// (field-named) otherwise.
     /// </summary>
     public static bool TrySynthesizeOta(LoopDesign design, SynthesisOptions options, out OtaDesignSynthesis? result, out ImmutableArray<ValidationIssue> issues)
     {
@@ -98,7 +99,7 @@ public static class DesignSynthesizer
             return false;
         }
 
-        var built = design with { Compensator = synthesis.SnappedNetwork };
+        var built = design with { Compensator = synthesis.ChosenNetwork };
         var analysis = DesignAnalyzer.Analyze(built);
         if (!analysis.IsValid)
         {

@@ -29,7 +29,7 @@ public sealed record NetworkSynthesis
     public required LoopPerformance Snapped { get; init; }
 
     /// <summary>The search over neighbouring values, when it was asked for and found a stable loop.</summary>
-    public NeighbourSearchResult? Search { get; init; }
+    public NeighbourSearchResult<OpAmpNetwork>? Search { get; init; }
 
     /// <summary>Crossover the synthesis aims for, Hz.</summary>
     public required double TargetCrossoverHz { get; init; }

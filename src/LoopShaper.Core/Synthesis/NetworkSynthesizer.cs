@@ -188,30 +188,10 @@ public static class NetworkSynthesizer
                 string.Create(inv, $"{Format(vout, "V", 4)} ({100 * ((vout / o.OutputVoltageV!.Value) - 1):+0.00;-0.00;0.00} %)"), "voltage divider"));
         }
 
-        NeighbourSearchResult? search = null;
-        if (o.SearchNeighbours)
-        {
-            if (double.IsNaN(fcTarget) || double.IsNaN(pmTarget))
-            {
-                warnings.Add("The neighbour search needs a crossover and a phase margin to aim for, and the ideal loop has no crossover in the analysed range.");
-            }
-            else
-            {
-                search = NeighbourSearch.Run(plant, snappedNetwork, parts, o, fcTarget, pmTarget, start, stop);
-                if (search is null)
-                {
-                    warnings.Add("The neighbour search found no combination with a stable loop and a crossover in range; the snapped values stand.");
-                }
-                else
-                {
-                    steps.Add(new("Neighbour search", string.Create(inv, $"every combination of +-{o.SearchSteps} preferred-value steps per part (R1 and R4 fixed); distance (100 ln(fc/fc0)/{o.CrossoverScalePct:G3})^2 + ((PM - PM0)/{o.PhaseMarginScaleDeg:G3})^2"),
-                        string.Create(inv, $"fc0 = {Format(fcTarget, "Hz")}, PM0 = {pmTarget:F2} deg, {search.CandidatesTried} combinations, snapped distance {search.SnappedDistance:G3}"),
-                        string.Create(inv, $"distance {search.Distance:G3}: ") + string.Join(", ", search.Parts.Where(p => p.Designator is not "R1" and not OpAmpNetworkParts.DividerBottom).Select(p => $"{p.Designator} = {Format(p.Value.Value, p.Unit)}")),
-                        "our search, no source"));
-                    steps.Add(Compare("Loop with the searched parts", search.Performance));
-                }
-            }
-        }
+        var (search, searchSteps, searchWarnings) = NeighbourSearch.Apply(
+            plant, snappedNetwork, parts, d => d is "R1" or OpAmpNetworkParts.DividerBottom, OpAmpNetworkParts.With, "R1 and R4 fixed", Compare, o, fcTarget, pmTarget, start, stop);
+        steps.AddRange(searchSteps);
+        warnings.AddRange(searchWarnings);
 
         var chosen = search?.Parts ?? parts;
         foreach (var p in chosen)

@@ -6,7 +6,7 @@ namespace LoopShaper.Core.Synthesis;
 
 /// <summary>
 /// The result of an OTA component synthesis: the ideal network (gm fixed), every part snapped to its series and the loop
-/// analysed with both (with the amplifier's output resistance).
+/// analysed with both (with the amplifier's output resistance), and optionally the best neighbouring values.
 /// </summary>
 public sealed record OtaNetworkSynthesis
 {
@@ -16,7 +16,7 @@ public sealed record OtaNetworkSynthesis
     /// <summary>The network with the exact values.</summary>
     public required TransconductanceNetwork IdealNetwork { get; init; }
 
-    /// <summary>The network with every part at its nearest preferred value: the network to build.</summary>
+    /// <summary>The network with every part at its nearest preferred value.</summary>
     public required TransconductanceNetwork SnappedNetwork { get; init; }
 
     /// <summary>Every part: ideal value, nearest preferred value, error and tolerance.</summary>
@@ -27,6 +27,9 @@ public sealed record OtaNetworkSynthesis
 
     /// <summary>The loop with the snapped parts.</summary>
     public required LoopPerformance Snapped { get; init; }
+
+    /// <summary>The search over neighbouring values of R2, C1 and C2, when it was asked for and found a stable loop.</summary>
+    public NeighbourSearchResult<TransconductanceNetwork>? Search { get; init; }
 
     /// <summary>Crossover the synthesis aims for, Hz.</summary>
     public required double TargetCrossoverHz { get; init; }
@@ -39,4 +42,13 @@ public sealed record OtaNetworkSynthesis
 
     /// <summary>Impractical values and missed targets, in words.</summary>
     public required ImmutableArray<string> Warnings { get; init; }
+
+    /// <summary>The network to build: the search's when there is one, else the snapped one.</summary>
+    public TransconductanceNetwork ChosenNetwork => Search?.Network ?? SnappedNetwork;
+
+    /// <summary>The parts to build.</summary>
+    public ImmutableArray<SynthesizedPart> ChosenParts => Search?.Parts ?? Parts;
+
+    /// <summary>The loop with the parts to build.</summary>
+    public LoopPerformance Chosen => Search?.Performance ?? Snapped;
 }

@@ -12,7 +12,8 @@ namespace LoopShaper.Core.Synthesis;
 /// Component synthesis for the OTA Type II network with gm fixed: R2, C1, C2 from the placement (the exact inverse,
 /// <see cref="OtaSynthesis.TypeII"/>), each snapped to its series, the loop analysed with both. The compensator's
 /// transfer function is taken from the divided output (the divider is the loop's sense gain), so the inverse is called
-/// with Hdiv = 1 and the rest of the loop carries Hdiv.
+/// with Hdiv = 1 and the rest of the loop carries Hdiv. An optional search over neighbouring preferred values of R2, C1
+/// and C2 (<see cref="NeighbourSearch"/>; gm and the divider stay fixed) keeps crossover and phase margin closest to the targets.
 /// </summary>
 public static class OtaNetworkSynthesizer
 {
@@ -27,6 +28,16 @@ public static class OtaNetworkSynthesizer
                 ("C1", PartKind.Capacitor, "capacitor in series with R2; integrator and the zero", n.C1F),
                 ("C2", PartKind.Capacitor, "capacitor across R2 + C1, OTA output to ground; the pole", n.C2F),
             ];
+
+    /// <summary>The network with the preferred values of a part list (R2, C1, C2); gm, Ro and the type stay.</summary>
+    public static TransconductanceNetwork With(TransconductanceNetwork n, IEnumerable<SynthesizedPart> parts)
+        => parts.Aggregate(n, (acc, p) => p.Designator switch
+        {
+            "R2" => acc with { R2Ohm = p.Value.Value },
+            "C1" => acc with { C1F = p.Value.Value },
+            "C2" => acc with { C2F = p.Value.Value },
+            _ => throw new ArgumentException($"'{p.Designator}' is not a part of an OTA network (R2, C1, C2).", nameof(parts)),
+        });
 
     /// <summary>
     /// Synthesises the OTA Type II network of a placement. <paramref name="restOfLoop"/> is the loop without the
@@ -75,8 +86,7 @@ public static class OtaNetworkSynthesizer
                 $"ideal {Format(p.Value.IdealValue, p.Unit, 4)}", string.Create(inv, $"{Format(p.Value.Value, p.Unit, 3)} ({p.Value.ErrorPct:+0.00;-0.00;0.00} %)"), "IEC 60063:2015"));
         }
 
-        double V(string d) => parts.First(p => p.Designator == d).Value.Value;
-        var snapped = ideal with { R2Ohm = V("R2"), C1F = V("C1"), C2F = V("C2") };
+        var snapped = With(ideal, parts);
         var idealPerf = LoopPerformance.From(MarginAnalyzer.Analyze(ideal.TransferFunction().Multiply(restOfLoop), start, stop));
         var snappedPerf = LoopPerformance.From(MarginAnalyzer.Analyze(snapped.TransferFunction().Multiply(restOfLoop), start, stop));
         steps.Add(Compare("Loop with the ideal parts", idealPerf));
@@ -85,17 +95,16 @@ public static class OtaNetworkSynthesizer
         double pmTarget = o.TargetPhaseMarginDeg ?? idealPerf.PhaseMarginDeg ?? double.NaN;
 
         var warnings = new List<string>();
-        if (o.SearchNeighbours)
-        {
-            warnings.Add("The neighbour search covers the op-amp networks only; the OTA network keeps its snapped values.");
-        }
-
+        var (search, searchSteps, searchWarnings) = NeighbourSearch.Apply(
+            restOfLoop, snapped, parts, _ => false, With, "gm and the divider fixed", Compare, o, fcTarget, pmTarget, start, stop);
+        steps.AddRange(searchSteps);
+        warnings.AddRange(searchWarnings);
         if (o.R1Ohm is not null)
         {
             warnings.Add("R1 anchors the op-amp networks only; the OTA network is anchored by gm, and its divider is the design's plant.feedback.");
         }
 
-        foreach (var p in parts)
+        foreach (var p in search?.Parts ?? parts)
         {
             double v = p.Value.Value;
             if (p.Kind == PartKind.Resistor && (v < NetworkSynthesizer.MinPracticalResistorOhm || v > NetworkSynthesizer.MaxPracticalResistorOhm))
@@ -109,11 +118,12 @@ public static class OtaNetworkSynthesizer
             }
         }
 
-        if (!snappedPerf.IsClosedLoopStable)
+        var final = search?.Performance ?? snappedPerf;
+        if (!final.IsClosedLoopStable)
         {
             warnings.Add("The loop with the chosen parts is UNSTABLE.");
         }
-        else if (snappedPerf.PhaseMarginDeg is double pmFinal && !double.IsNaN(pmTarget) && pmFinal < pmTarget - 1.0)
+        else if (final.PhaseMarginDeg is double pmFinal && !double.IsNaN(pmTarget) && pmFinal < pmTarget - 1.0)
         {
             warnings.Add(string.Create(inv, $"The chosen parts give {pmFinal:F1} deg of phase margin, {pmTarget - pmFinal:F1} deg below the {pmTarget:F1} deg aimed for."));
         }
@@ -126,6 +136,7 @@ public static class OtaNetworkSynthesizer
             Parts = parts,
             Ideal = idealPerf,
             Snapped = snappedPerf,
+            Search = search,
             TargetCrossoverHz = fcTarget,
             TargetPhaseMarginDeg = pmTarget,
             Derivations = [.. steps],

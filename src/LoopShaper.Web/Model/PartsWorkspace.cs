@@ -141,16 +141,16 @@ public sealed class PartsWorkspace : IDisposable
                 return new(null, null, otaIssues, null, null);
             }
 
-            var snapped = ota!.Synthesis.SnappedNetwork;
+            var chosen = ota!.Synthesis.ChosenNetwork;
             var divider = ota.BuiltDesign.Plant is BuckPlant buck ? buck.Feedback : null;
             var otaExports = new PartsExports(
                 baseName,
                 PartsListCsv.Write(ota.Synthesis),
-                divider is null ? null : SpiceNetlist.Compensator(snapped, divider, design.Name),
-                SpiceNetlist.Loop(ota.BuiltDesign, snapped));
-            string anchor = $"gm = {Format(snapped.Amplifier.TransconductanceS, "S")} of the OTA (Ro = {Format(snapped.Amplifier.OutputResistanceOhm, "Ohm")})"
+                divider is null ? null : SpiceNetlist.Compensator(chosen, divider, design.Name),
+                SpiceNetlist.Loop(ota.BuiltDesign, chosen));
+            string anchor = $"gm = {Format(chosen.Amplifier.TransconductanceS, "S")} of the OTA (Ro = {Format(chosen.Amplifier.OutputResistanceOhm, "Ohm")})"
                 + (divider is null ? ", the custom plant's divider ratio" : $", divider {Format(divider.TopOhm, "Ohm")} over {Format(divider.BottomOhm, "Ohm")} from the plant")
-                + ": R2, C1 and C2 follow from the placement; no neighbour search for the OTA network";
+                + ": R2, C1 and C2 follow from the placement" + (ota.Synthesis.Search is null ? string.Empty : ", then from the neighbour search (gm and the divider fixed)");
             return new(null, ota, otaIssues, otaExports, anchor);
         }
 

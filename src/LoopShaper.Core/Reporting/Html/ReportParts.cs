@@ -25,7 +25,7 @@ public sealed record ReportParts(ImmutableArray<PartsListEntry> Entries, string 
                 return new([.. NetworkPartsList.Of(network, options)], "The design's compensator parts, as given in the design file.");
             case TransconductanceNetwork:
                 return DesignSynthesizer.TrySynthesizeOta(design, options, out var ota, out var otaIssues)
-                    ? new([.. ota!.Synthesis.Parts.Select(PartsListEntry.From)], "The OTA network's parts snapped to standard values (IEC 60063), as `export --parts` writes them.")
+                    ? new([.. ota!.Synthesis.ChosenParts.Select(PartsListEntry.From)], "The OTA network's parts at standard values (IEC 60063), as `export --parts` writes them.")
                     : new([], "No parts list: " + string.Join("; ", otaIssues.Where(i => i.Severity == Validation.Severity.Error)));
             default:
                 return DesignSynthesizer.TrySynthesize(design, options, out var result, out var issues)

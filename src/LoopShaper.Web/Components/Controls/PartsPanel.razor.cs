@@ -7,8 +7,8 @@ using static LoopShaper.Core.Units.EngineeringFormat;
 namespace LoopShaper.Web.Components.Controls;
 
 /// <summary>
-/// The parts of the compensator (op-amp network or OTA network): series choice and R1 (gm and the divider anchor an OTA network), every part with its ideal and standard value, the loop with
-/// ideal and standard parts side by side, and the parts list and netlists to download. All figures come from the core.
+/// The parts of the compensator (op-amp network or OTA network): series choice, R1 (gm and the divider anchor an OTA network)
+/// and the neighbour search, every part with its ideal, snapped and chosen value, the loop with ideal, snapped and searched parts side by side, and the parts list and netlists to download. All figures come from the core.
 /// </summary>
 public partial class PartsPanel
 {
@@ -26,7 +26,7 @@ public partial class PartsPanel
 
     private bool Searched => Parts.Report?.Searched is not null;
 
-    /// <summary>A transconductance (OTA) compensator: gm and the divider anchor the parts, R1 and the neighbour search do not apply.</summary>
+    /// <summary>A transconductance (OTA) compensator: gm and the divider anchor the parts, R1 does not apply.</summary>
     private bool IsOta => Form.Mode == CompensatorMode.Transconductance;
 
     private bool Stale => Parts.IsRunning || Parts.DesignRevision != Workspace.Revision;
