@@ -88,7 +88,7 @@ public sealed class TolerancesEditorTests : BunitContext
     }
 
     [Fact]
-    public async Task A_loaded_section_is_shown_and_its_capacitor_entries_travel_unchanged()
+    public async Task A_loaded_section_is_shown_with_its_capacitor_entry()
     {
         var spec = new ToleranceSpec
         {
@@ -100,13 +100,52 @@ public sealed class TolerancesEditorTests : BunitContext
         await workspace.RecomputeAsync();
         var cut = Render<TolerancesEditor>(p => p.Add(c => c.Workspace, workspace));
         Assert.Equal("12.5 %", cut.Find(InductanceInput).GetAttribute("value"));
-        Assert.Contains("1 capacitor kind has its own tolerance", cut.Find("[data-tolerances-kept]").TextContent, StringComparison.Ordinal);
+        Assert.Equal("10 %", cut.Find("#f-tolerances-capacitors-0--tolerancePct").GetAttribute("value"));
+        Assert.Equal("0.6", cut.Find("#f-tolerances-capacitors-0--dcBiasFactor").GetAttribute("value"));
+        Assert.Empty(cut.FindAll("[data-tolerances-kept]"));
         Assert.True(workspace.Analysis!.IsValid);
         Assert.Empty(cut.FindAll("#f-tolerances-senseGainPct")); // voltage mode: no sense gain shown, its value kept
         var built = workspace.Form.Build().Tolerances!;
         Assert.Equal(12.5, built.InductancePct);
         Assert.Equal(4.0, built.SenseGainPct);
         Assert.Equal(new CapacitorTolerance(10, 0.6), built.Capacitors[DemoCeramic]);
+    }
+
+    [Fact]
+    public async Task A_branch_of_its_own_gets_an_entry_that_follows_a_rename_and_its_range_message_beside_its_field()
+    {
+        var workspace = await Workspace();
+        var cut = Render<TolerancesEditor>(p => p.Add(c => c.Workspace, workspace));
+        Assert.Equal(2, cut.FindAll("[data-branch-tolerance]").Count);
+
+        // The second branch (the polymer) alone: its entry is the first in label order, so its paths are [0].
+        var polymer = workspace.Form.Capacitors[1];
+        await cut.Find("[data-branch-tolerance='1'] input[id$='dcBiasFactor']").InputAsync("1.5");
+        cut.WaitForAssertion(() => Assert.Equal("1.5 is out of range: allowed 0.05 to 1.", cut.Find("[data-field-message='tolerances.capacitors[0].dcBiasFactor']").TextContent));
+        Assert.Equal("1.5", cut.Find("[data-branch-tolerance='1'] input[id$='dcBiasFactor']").GetAttribute("value"));
+
+        await cut.Find("[data-branch-tolerance='1'] input[id$='dcBiasFactor']").InputAsync("0.8");
+        await cut.Find("[data-branch-tolerance='0'] input[id$='dcBiasFactor']").InputAsync("0.45");
+        Eventually.True(() => workspace.Analysis is { IsValid: true } a && a.Design.Tolerances?.Capacitors.Count == 2, "the analysis with both entries");
+        var t = workspace.Analysis!.Design.Tolerances!;
+        Assert.Equal(new CapacitorTolerance(20, 0.45), t.Capacitors[DemoCeramic]);
+        Assert.Equal(new CapacitorTolerance(20, 0.8), t.Capacitors[polymer.Label]);
+        // The derating reaches the corners: the ceramic's nominal factor is its DC-bias factor.
+        var c = ToleranceModel.Parameters(workspace.Analysis.Design).Single(p => p.Name == $"C[{DemoCeramic}]");
+        Assert.Equal(0.45, c.NominalFactor);
+
+        // Renamed in the bank, the entry follows the branch.
+        workspace.Form.Capacitors[0].Label = "aaa ceramic";
+        var built = workspace.Form.Build().Tolerances!;
+        Assert.Equal(0.45, built.Capacitors["aaa ceramic"].DcBiasFactor);
+        Assert.False(built.Capacitors.ContainsKey(DemoCeramic));
+        Assert.Equal("tolerances.capacitors[0].dcBiasFactor", workspace.Form.Tolerances.For(workspace.Form.Capacitors[0]).DcBiasFactor.Path);
+        Assert.Equal("tolerances.capacitors[1].dcBiasFactor", workspace.Form.Tolerances.For(polymer).DcBiasFactor.Path);
+
+        // Cleared again: no entry, and the demo (no section to begin with) writes none once every field is back at its default.
+        workspace.Form.Tolerances.For(workspace.Form.Capacitors[0]).DcBiasFactor.SetText(string.Empty);
+        workspace.Form.Tolerances.For(polymer).DcBiasFactor.SetText(string.Empty);
+        Assert.Null(workspace.Form.Build().Tolerances);
     }
 
     private static async Task<DesignWorkspace> Workspace()

@@ -126,7 +126,7 @@ public sealed class DesignForm
         CapacitorSeries = sx.CapacitorSeries;
         SearchNeighbours = sx.SearchNeighbours;
         PartsR1 = new($"{Parts}.r1Ohm", "R1 (empty: divider top)", "Ohm", sx.R1Ohm, "Ω", optional: true);
-        Tolerances = new TolerancesForm(design.Tolerances);
+        Tolerances = new TolerancesForm(design.Tolerances, Capacitors);
     }
 
     /// <summary>The tolerances for the corners and Monte Carlo (the design file's "tolerances" section).</summary>
