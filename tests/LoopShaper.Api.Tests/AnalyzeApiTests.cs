@@ -39,6 +39,48 @@ public sealed class AnalyzeApiTests(WebApplicationFactory<Program> factory) : IC
     }
 
     [Fact]
+    public async Task The_corner_table_takes_the_tolerances_of_the_posted_file()
+    {
+        // The example's own section (L +-20 %): the all-low corners differ from the nominal-parts ones. Every band of the
+        // section and of the compensator's parts at 0 %, every multiplier 1: they are the same corner, figure for figure.
+        var design = System.Text.Json.Nodes.JsonNode.Parse(await File.ReadAllTextAsync(Path.Combine(Repo.ExamplesDir, "pol-12v-to-3v3-peak-current-mode.json")))!;
+        using var client = factory.CreateClient();
+        var asIs = await Rows(design.ToJsonString());
+        Assert.NotEqual(asIs["Vin max, load min, nominal parts"], asIs["Vin max, load min, all low"]);
+        var tolerances = design["tolerances"]!.AsObject();
+        foreach (string band in new[] { "inductancePct", "capacitancePct", "senseGainPct", "rampPct", "transconductancePct" })
+        {
+            tolerances[band] = 0;
+        }
+
+        foreach (string factor in new[] { "esrLowFactor", "esrHighFactor", "dcrLowFactor", "dcrHighFactor" })
+        {
+            tolerances[factor] = 1;
+        }
+
+        foreach (var entry in tolerances["capacitors"]!.AsArray())
+        {
+            entry!["tolerancePct"] = 0;
+        }
+
+        design["synthesis"] = new System.Text.Json.Nodes.JsonObject { ["resistorTolerancePct"] = 0, ["capacitorTolerancePct"] = 0 };
+        var tight = await Rows(design.ToJsonString());
+        Assert.Equal(asIs["Vin max, load min, nominal parts"], tight["Vin max, load min, nominal parts"]);
+        Assert.Equal(tight["Vin max, load min, nominal parts"], tight["Vin max, load min, all low"]);
+        Assert.Equal(tight["Vin min, load max, nominal parts"], tight["Vin min, load max, worst case"]);
+
+        async Task<Dictionary<string, string>> Rows(string body)
+        {
+            using var response = await client.PostAsync(AnalyzeApiEndpoints.AnalyzePath, Json(body));
+            Assert.Equal(HttpStatusCode.OK, response.StatusCode);
+            using var doc = JsonDocument.Parse(await response.Content.ReadAsStringAsync());
+            return doc.RootElement.GetProperty("cornerTable").GetProperty("rows").EnumerateArray().ToDictionary(
+                r => r.GetProperty("label").GetString()!,
+                r => $"{r.GetProperty("crossoverHz").GetRawText()} {r.GetProperty("phaseMarginDeg").GetRawText()} {r.GetProperty("upperGainMarginDb").GetRawText()}");
+        }
+    }
+
+    [Fact]
     public async Task Out_of_range_field_gives_400_with_its_path_and_the_command_line_message()
     {
         string json = (await File.ReadAllTextAsync(Path.Combine(Repo.ExamplesDir, "industrial-24v-to-5v.json"))).Replace("\"switchingFrequencyHz\": \"", "\"switchingFrequencyHz\": \"-", StringComparison.Ordinal);

@@ -19,6 +19,8 @@ public class MonteCarloTests
         Assert.Equal(a.WorstSamples.Select(s => s.Index), b.WorstSamples.Select(s => s.Index));
         Assert.Equal(a.WorstSamples[0].Factors.ToArray(), b.WorstSamples[0].Factors.ToArray());
         Assert.NotEqual(a.Distribution("phaseMarginDeg")!.Mean, c.Distribution("phaseMarginDeg")!.Mean);
+        Assert.Null(a.CancelStopS);
+        Assert.False(a.Cancelled);
     }
 
     [Theory]
@@ -96,6 +98,10 @@ public class MonteCarloTests
         Assert.True(result.Cancelled);
         Assert.True(result.Completed < 100_000);
         Assert.True(ms < 100, $"returned {ms:F0} ms after cancel");
+
+        // The runner's own measure: cancel request to the end of sampling, before the partial summary and the return.
+        Assert.NotNull(result.CancelStopS);
+        Assert.InRange(1000 * result.CancelStopS!.Value, 0, ms);
     }
 
     [Fact]

@@ -6,8 +6,11 @@ namespace LoopShaper.Core.Corners;
 
 /// <summary>
 /// Judges one corner or sample against the design criteria: closed-loop stability, criteria.minPhaseMarginDeg,
-/// criteria.minGainMarginDb (upper margin), criteria.maxCrossoverFractionOfSwitching, criteria.minCrossoverHz and, when
-/// a load step was simulated, criteria.maxLoadStepDeviationV. The main analysis's ripple and overshoot checks stay there.
+/// criteria.minGainMarginDb (the upper margin, and the size of the lower margin of a conditionally stable loop: gain
+/// lowered by less than the limit must not destabilise it), criteria.maxCrossoverFractionOfSwitching,
+/// criteria.minCrossoverHz and, when a load step was simulated, criteria.maxLoadStepDeviationV (corners; a Monte Carlo
+/// sample has no load step). The ripple (a choice of L at the design point) and reference-step overshoot checks stay
+/// with the main analysis.
 /// </summary>
 public static class CornerVerdict
 {
@@ -33,6 +36,11 @@ public static class CornerVerdict
         if (f.UpperGainMarginDb is double gm && gm < k.MinGainMarginDb)
         {
             r.Add(string.Create(inv, $"gain margin {gm:F1} dB < {k.MinGainMarginDb:G4} dB"));
+        }
+
+        if (f.LowerGainMarginDb is double lower && -lower < k.MinGainMarginDb)
+        {
+            r.Add(string.Create(inv, $"lower gain margin {lower:F1} dB: less than {k.MinGainMarginDb:G4} dB of gain reduction destabilises"));
         }
 
         if (f.CrossoverHz is double fc)

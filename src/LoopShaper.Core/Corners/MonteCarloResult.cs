@@ -15,6 +15,7 @@ namespace LoopShaper.Core.Corners;
 /// <param name="FastPathCount">Samples evaluated by the direct frequency-domain evaluator (<see cref="DirectLoopEvaluator"/>); the rest by the full analysis.</param>
 /// <param name="ElapsedS">Wall-clock time of the run, s.</param>
 /// <param name="AllSamples">Every analysed sample, in index order, when <see cref="MonteCarloSettings.KeepAllSamples"/> asked for them; empty otherwise.</param>
+/// <param name="CancelStopS">For a cancelled run: time from the cancel request to the end of sampling (the last sample in flight finished, no thread left computing), s, measured by the runner; the summary of the partial result comes after it. Null when not cancelled.</param>
 public sealed record MonteCarloResult(
     MonteCarloSettings Settings,
     ImmutableArray<ToleranceParameter> Parameters,
@@ -26,7 +27,8 @@ public sealed record MonteCarloResult(
     ImmutableArray<MonteCarloSample> WorstSamples,
     int FastPathCount,
     double ElapsedS,
-    ImmutableArray<MonteCarloSample> AllSamples)
+    ImmutableArray<MonteCarloSample> AllSamples,
+    double? CancelStopS = null)
 {
     /// <summary>Share of the analysed samples that meet every criterion, % (0 when none was analysed).</summary>
     public double YieldPct => Completed > 0 ? 100.0 * PassedCount / Completed : 0.0;

@@ -26,6 +26,8 @@ public static class MonteCarloRunner
         }
 
         var clock = Stopwatch.StartNew();
+        long cancelAsked = 0;
+        using var onCancel = cancellation.Register(() => Interlocked.CompareExchange(ref cancelAsked, Stopwatch.GetTimestamp(), 0));
         design = CornerSweep.Fixed(design);
         var parameters = ToleranceModel.Parameters(design, settings.Tolerances);
         var at = ConditionOf(design, settings);
@@ -72,6 +74,8 @@ public static class MonteCarloRunner
         }, _ => { });
 
         bool cancelled = cancellation.IsCancellationRequested && completed < n;
+        long asked = Interlocked.Read(ref cancelAsked);
+        double? cancelStopS = cancelled && asked != 0 ? Stopwatch.GetElapsedTime(asked).TotalSeconds : null;
         var indices = Enumerable.Range(0, n).Where(i => done[i]).ToArray();
         int passed = indices.Count(i => figures[i] is not null && failures[i].IsEmpty);
         var dists = new List<FigureDistribution>();
@@ -95,7 +99,7 @@ public static class MonteCarloRunner
             .ToImmutableArray();
         progress?.Report(new MonteCarloProgress(completed, n));
         return new MonteCarloResult(settings, parameters, at, completed, cancelled, passed, [.. dists], worst, indices.Count(i => fast[i]), clock.Elapsed.TotalSeconds,
-            settings.KeepAllSamples ? [.. indices.Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))] : []);
+            settings.KeepAllSamples ? [.. indices.Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))] : [], cancelStopS);
     }
 
     /// <summary>The factors of sample <paramref name="index"/>: uniform in [low, high], or normal about the centre with sigma = (high - low) / 6.</summary>

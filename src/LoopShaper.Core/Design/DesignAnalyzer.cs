@@ -456,6 +456,11 @@ public static class DesignAnalyzer
             w.Add(string.Create(inv, $"Low gain margin: {gm:F1} dB."));
         }
 
+        if (m.LowerGainMarginDb is double lgm && -lgm < design.Criteria.MinGainMarginDb)
+        {
+            w.Add(string.Create(inv, $"Low lower gain margin: {lgm:F1} dB (conditionally stable: that much less gain makes the loop unstable)."));
+        }
+
         if (!m.IsClosedLoopStable)
         {
             w.Add("The closed loop is UNSTABLE.");
@@ -511,6 +516,12 @@ public static class DesignAnalyzer
             new("gain margin", "criteria.minGainMarginDb", m.UpperGainMarginDb is null || m.UpperGainMarginDb >= k.MinGainMarginDb,
                 m.UpperGainMarginDb is double gm ? gm.ToString("F1", inv) + " dB" : "no phase crossover in range", ">= " + k.MinGainMarginDb.ToString("G4", inv) + " dB"),
         };
+        if (m.LowerGainMarginDb is double lower)
+        {
+            // A conditionally stable loop: gain lowered by |lower| dB destabilises it; the same limit as the upper margin.
+            r.Add(new("lower gain margin", "criteria.minGainMarginDb", -lower >= k.MinGainMarginDb, lower.ToString("F1", inv) + " dB", "<= -" + k.MinGainMarginDb.ToString("G4", inv) + " dB"));
+        }
+
         double? fs = design.Plant switch { BuckPlant b => b.PowerStage.SwitchingFrequencyHz, CustomPlant c => c.SwitchingFrequencyHz, _ => null };
         if (fs is double f && m.CrossoverHz is double fc)
         {

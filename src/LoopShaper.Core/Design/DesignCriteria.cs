@@ -6,7 +6,7 @@ namespace LoopShaper.Core.Design;
 /// of full load.
 /// </summary>
 /// <param name="MinPhaseMarginDeg">Smallest acceptable phase margin, degrees.</param>
-/// <param name="MinGainMarginDb">Smallest acceptable upper gain margin, dB.</param>
+/// <param name="MinGainMarginDb">Smallest acceptable upper gain margin, dB; a conditionally stable loop's lower gain margin must be at least as large in size (at most -MinGainMarginDb).</param>
 /// <param name="MaxCrossoverFractionOfSwitching">Highest crossover as a fraction of the switching frequency.</param>
 /// <param name="MinCrossoverHz">Lowest acceptable crossover, Hz (0 for none).</param>
 /// <param name="MaxOvershootPct">Largest reference-step overshoot, %; null for no limit.</param>

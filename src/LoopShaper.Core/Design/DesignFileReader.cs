@@ -54,13 +54,16 @@ internal static class DesignFileReader
             root.NeedsVersion("synthesis", version, 2);
             var synthesisFields = root.OptionalObject("synthesis");
             var synthesis = synthesisFields is null ? null : SynthesisSectionReader.Read(synthesisFields);
+            root.NeedsVersion("tolerances", version, 2);
+            var tolerancesFields = root.OptionalObject("tolerances");
+            var tolerances = tolerancesFields is null ? null : TolerancesSectionReader.Read(tolerancesFields);
             root.Finish("a design file");
             if (errors.Count > 0 || plant is null || compensator is null)
             {
                 return new DesignFileResult(null, [.. errors]);
             }
 
-            return new DesignFileResult(new LoopDesign(name, description, plant, compensator, analysis, criteria, synthesis), []);
+            return new DesignFileResult(new LoopDesign(name, description, plant, compensator, analysis, criteria, synthesis, tolerances), []);
         }
     }
 

@@ -3,6 +3,7 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Corners;
 using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.TransferFunctions;
 using static LoopShaper.Core.Design.DesignFileWords;
@@ -54,6 +55,11 @@ internal sealed class DesignFileWriter
         if (d.Synthesis is { } synthesis)
         {
             Object("synthesis", () => Synthesis(synthesis));
+        }
+
+        if (d.Tolerances is { } tolerances)
+        {
+            Object("tolerances", () => Tolerances(tolerances));
         }
 
         _w.WriteEndObject();
@@ -310,6 +316,26 @@ internal sealed class DesignFileWriter
         });
         _w.WriteBoolean("searchNeighbours", s.SearchNeighbours);
         _w.WriteNumber("searchSteps", s.SearchSteps);
+    }
+
+    private void Tolerances(ToleranceSpec t)
+    {
+        Number("inductancePct", t.InductancePct);
+        Number("capacitancePct", t.CapacitancePct);
+        Number("dcBiasFactor", t.DcBiasFactor);
+        Array("capacitors", t.Capacitors, c =>
+        {
+            _w.WriteString("label", c.Key);
+            Number("tolerancePct", c.Value.TolerancePct);
+            Number("dcBiasFactor", c.Value.DcBiasFactor);
+        });
+        Number("esrLowFactor", t.EsrLowFactor);
+        Number("esrHighFactor", t.EsrHighFactor);
+        Number("dcrLowFactor", t.DcrLowFactor);
+        Number("dcrHighFactor", t.DcrHighFactor);
+        Number("senseGainPct", t.SenseGainPct);
+        Number("rampPct", t.RampPct);
+        Number("transconductancePct", t.TransconductancePct);
     }
 
     private void Object(string name, Action body)

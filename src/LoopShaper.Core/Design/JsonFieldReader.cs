@@ -339,7 +339,8 @@ internal sealed class JsonFieldReader
         }
     }
 
-    private void Error(string path, string message) => _errors.Add(new ValidationIssue(path, message));
+    /// <summary>Records an error at a path (a check the reader makes across fields, such as a repeated label).</summary>
+    public void Error(string path, string message) => _errors.Add(new ValidationIssue(path, message));
 
     private static string Quoted(IEnumerable<string> words) => string.Join(", ", words.Select(w => $"\"{w}\""));
 

@@ -1,4 +1,5 @@
 using LoopShaper.Core.Compensators;
+using LoopShaper.Core.Corners;
 using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Synthesis;
@@ -34,6 +35,11 @@ public static class DesignValidator
         if (design.Synthesis is { } synthesis)
         {
             ValidateSynthesis(c, synthesis, design.Compensator);
+        }
+
+        if (design.Tolerances is { } tolerances)
+        {
+            ValidateTolerances(c, tolerances, design.Plant);
         }
 
         return c.Issues;
@@ -504,6 +510,56 @@ public static class DesignValidator
         foreach (string d in s.TolerancesPct.Keys.Where(d => SynthesisSettings.Designators.Contains(d) && !present.Contains(d)))
         {
             c.Warn($"{p}.tolerances.{d}", $"a {compensator.Type} network has no {d}; its tolerance is not used.");
+        }
+    }
+
+    /// <summary>
+    /// The tolerances section: bands 0 to 90 % (a band of 100 % or more would take a part to zero), DC-bias factors 0.05 to
+    /// 1, temperature multipliers 0.1 to 1 (low) and 1 to 10 (high); our limits, no source. Capacitor entries are checked
+    /// in label order (the order the writer writes them) and must name an output-capacitor branch.
+    /// </summary>
+    private static void ValidateTolerances(Checks c, ToleranceSpec t, Plant plant)
+    {
+        const string p = "tolerances";
+        c.InRange($"{p}.inductancePct", t.InductancePct, 0, 90, "%");
+        c.InRange($"{p}.capacitancePct", t.CapacitancePct, 0, 90, "%");
+        Factor(c, $"{p}.dcBiasFactor", t.DcBiasFactor, 0.05, 1);
+        Factor(c, $"{p}.esrLowFactor", t.EsrLowFactor, 0.1, 1);
+        Factor(c, $"{p}.esrHighFactor", t.EsrHighFactor, 1, 10);
+        Factor(c, $"{p}.dcrLowFactor", t.DcrLowFactor, 0.1, 1);
+        Factor(c, $"{p}.dcrHighFactor", t.DcrHighFactor, 1, 10);
+        c.InRange($"{p}.senseGainPct", t.SenseGainPct, 0, 90, "%");
+        c.InRange($"{p}.rampPct", t.RampPct, 0, 90, "%");
+        c.InRange($"{p}.transconductancePct", t.TransconductancePct, 0, 90, "%");
+        var labels = plant is BuckPlant b ? b.PowerStage.OutputCapacitors.Select(x => x.Label).ToList() : [];
+        int i = 0;
+        foreach (var (label, tolerance) in t.Capacitors)
+        {
+            string at = $"{p}.capacitors[{i++}]";
+            c.InRange($"{at}.tolerancePct", tolerance.TolerancePct, 0, 90, "%");
+            Factor(c, $"{at}.dcBiasFactor", tolerance.DcBiasFactor, 0.05, 1);
+            if (plant is not BuckPlant)
+            {
+                c.Warn($"{at}.label", $"a custom plant has no output capacitors: the tolerance of '{label}' is not used.");
+            }
+            else if (!labels.Contains(label, StringComparer.Ordinal))
+            {
+                c.Error($"{at}.label", $"'{label}' names no output-capacitor branch: the labels of plant.powerStage.outputCapacitors are {string.Join(", ", labels.Select(l => $"'{l}'"))}.");
+            }
+        }
+    }
+
+    /// <summary>Requires min &lt;= value &lt;= max for a plain multiplier, shown as a plain number ("0.05", not "50.0m").</summary>
+    private static void Factor(Checks c, string field, double value, double min, double max)
+    {
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        if (!double.IsFinite(value))
+        {
+            c.Error(field, string.Create(inv, $"must be a finite number from {min:G4} to {max:G4}."));
+        }
+        else if (value < min || value > max)
+        {
+            c.Error(field, string.Create(inv, $"{value:G4} is out of range: allowed {min:G4} to {max:G4}."));
         }
     }
 }

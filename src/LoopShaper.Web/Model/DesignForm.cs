@@ -126,7 +126,11 @@ public sealed class DesignForm
         CapacitorSeries = sx.CapacitorSeries;
         SearchNeighbours = sx.SearchNeighbours;
         PartsR1 = new($"{Parts}.r1Ohm", "R1 (empty: divider top)", "Ohm", sx.R1Ohm, "Ω", optional: true);
+        Tolerances = new TolerancesForm(design.Tolerances, Capacitors);
     }
+
+    /// <summary>The tolerances for the corners and Monte Carlo (the design file's "tolerances" section).</summary>
+    public TolerancesForm Tolerances { get; }
 
     /// <summary>Short name of the design.</summary>
     public string Name { get; set; }
@@ -420,6 +424,7 @@ public sealed class DesignForm
             list.AddRange([StartFrequency, StopFrequency, Points, LoadStep, LoadStepSlew, ReferenceStep, StepDuration, StepSamples]);
             list.AddRange([MinPhaseMargin, MinGainMargin, MaxCrossoverFraction, MinCrossover, MaxOvershoot, MaxLoadStepDeviation, MinRippleFraction, MaxRippleFraction]);
             list.Add(PartsR1);
+            list.AddRange(Tolerances.Fields);
             return list;
         }
     }
@@ -551,7 +556,7 @@ public sealed class DesignForm
         var criteria = new DesignCriteria(
             V(MinPhaseMargin), V(MinGainMargin), V(MaxCrossoverFraction), V(MinCrossover),
             MaxOvershoot.Value, MaxLoadStepDeviation.Value, V(MinRippleFraction), V(MaxRippleFraction));
-        return new LoopDesign(Name, Description, plant, compensator, analysis, criteria, BuildSynthesis());
+        return new LoopDesign(Name, Description, plant, compensator, analysis, criteria, BuildSynthesis(), Tolerances.Build());
     }
 
     /// <summary>The synthesis section; none when the design had none and the parts settings are still the defaults.</summary>

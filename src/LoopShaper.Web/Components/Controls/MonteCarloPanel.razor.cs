@@ -49,7 +49,9 @@ public sealed partial class MonteCarloPanel : IDisposable
 
     private string StatusText => Run.IsRunning
         ? $"{(100 * Run.Progress).ToString("F0", Inv)} % of {Request.SamplesText.Trim()} samples"
-        : $"cancelled: stopped {Seconds(Run.StopLatency?.TotalSeconds ?? 0)} after the request, at {(100 * Run.Progress).ToString("F0", Inv)} %";
+        : Run.Result is { CancelStopS: double halt }
+            ? $"cancelled: sampling stopped {Seconds(halt)} after the request, partial result ready after {Seconds(Run.StopLatency?.TotalSeconds ?? 0)}, at {(100 * Run.Progress).ToString("F0", Inv)} %"
+            : $"cancelled: stopped {Seconds(Run.StopLatency?.TotalSeconds ?? 0)} after the request, at {(100 * Run.Progress).ToString("F0", Inv)} %";
 
     [Inject]
     private ILogger<MonteCarloPanel> Logger { get; set; } = default!;
