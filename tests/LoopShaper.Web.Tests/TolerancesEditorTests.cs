@@ -47,8 +47,9 @@ public sealed class TolerancesEditorTests : BunitContext
 
         // The corner sweep of the new analysis varies L by +-5 % and the ESR up to x3.
         PlotlyModule.Setup(JSInterop);
-        var corners = Render<CornersPanel>(p => p.Add(c => c.Analysis, workspace.Analysis).Add(c => c.Threads, 1));
-        corners.Find("[data-run-corners]").Click();
+        using var watch = new CornerWatch(Services.GetRequiredService<Microsoft.Extensions.Logging.ILoggerFactory>().CreateLogger("corners")) { SettleMs = 0, Threads = 1 };
+        var corners = Render<CornersPanel>(p => p.Add(c => c.Watch, watch));
+        await watch.Follow(workspace.Analysis);
         Eventually.True(() => corners.Instance.Run.State == RunState.Finished, "the corner sweep");
         var parameters = corners.Instance.Table!.Parameters;
         var l = parameters.Single(p => p.Kind == ToleranceKind.Inductance);

@@ -41,15 +41,36 @@ public sealed record FigureDistribution(
     /// <summary>The distribution of the values present; null when none is.</summary>
     public static FigureDistribution? Of(string figure, IReadOnlyList<double?> values, int bins)
     {
-        var v = values.Where(x => x is double d && double.IsFinite(d)).Select(x => x!.Value).ToArray();
-        if (v.Length == 0)
+        var present = new List<double>(values.Count);
+        foreach (var x in values)
+        {
+            if (x is double d && double.IsFinite(d))
+            {
+                present.Add(d);
+            }
+        }
+
+        if (present.Count == 0)
         {
             return null;
         }
 
+        var v = present.ToArray();
         Array.Sort(v);
-        double mean = v.Average();
-        double sd = v.Length > 1 ? Math.Sqrt(v.Sum(x => (x - mean) * (x - mean)) / (v.Length - 1)) : 0.0;
+        double sum = 0;
+        foreach (double x in v)
+        {
+            sum += x;
+        }
+
+        double mean = sum / v.Length;
+        double squares = 0;
+        foreach (double x in v)
+        {
+            squares += (x - mean) * (x - mean);
+        }
+
+        double sd = v.Length > 1 ? Math.Sqrt(squares / (v.Length - 1)) : 0.0;
         bins = Math.Max(bins, 1);
         double lo = v[0], hi = v[^1];
         double width = hi > lo ? (hi - lo) / bins : 1.0;

@@ -73,15 +73,38 @@ public static class MonteCarloRunner
             return direct;
         }, _ => { });
 
+        long sampled = Stopwatch.GetTimestamp();
         bool cancelled = cancellation.IsCancellationRequested && completed < n;
+        // The token reads as cancelled before its callbacks have run on the cancelling thread: wait (briefly) for ours.
         long asked = Interlocked.Read(ref cancelAsked);
-        double? cancelStopS = cancelled && asked != 0 ? Stopwatch.GetElapsedTime(asked).TotalSeconds : null;
-        var indices = Enumerable.Range(0, n).Where(i => done[i]).ToArray();
-        int passed = indices.Count(i => figures[i] is not null && failures[i].IsEmpty);
+        for (var spin = new SpinWait(); cancelled && asked == 0 && spin.Count < 200; spin.SpinOnce())
+        {
+            asked = Interlocked.Read(ref cancelAsked);
+        }
+
+        double? cancelStopS = cancelled && asked != 0 ? Math.Max(Stopwatch.GetElapsedTime(asked, sampled).TotalSeconds, 0.0) : null;
+        // The summary: plain loops and one sort per figure, so that a cancelled run returns promptly after sampling.
+        var indices = new List<int>(completed);
+        int passed = 0;
+        for (int i = 0; i < n; i++)
+        {
+            if (done[i])
+            {
+                indices.Add(i);
+                passed += figures[i] is not null && failures[i].IsEmpty ? 1 : 0;
+            }
+        }
+
         var dists = new List<FigureDistribution>();
+        var values = new double?[indices.Count];
         void Add(string name, Func<LoopFigures, double?> pick)
         {
-            if (FigureDistribution.Of(name, [.. indices.Select(i => figures[i] is { } lf ? pick(lf) : null)], settings.HistogramBins) is { } d)
+            for (int k = 0; k < values.Length; k++)
+            {
+                values[k] = figures[indices[k]] is { } lf ? pick(lf) : null;
+            }
+
+            if (FigureDistribution.Of(name, values, settings.HistogramBins) is { } d)
             {
                 dists.Add(d);
             }
@@ -91,15 +114,46 @@ public static class MonteCarloRunner
         Add("phaseMarginDeg", f => f.PhaseMarginDeg);
         Add("upperGainMarginDb", f => f.UpperGainMarginDb);
         Add("lowerGainMarginDb", f => f.LowerGainMarginDb);
-        var worst = indices
-            .OrderBy(i => figures[i] is not null && failures[i].IsEmpty ? 1 : 0)
-            .ThenBy(i => figures[i]?.PhaseMarginDeg ?? double.NegativeInfinity)
-            .Take(Math.Max(settings.WorstCount, 0))
+        var worst = WorstSamples(indices, figures, failures, Math.Max(settings.WorstCount, 0))
             .Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))
             .ToImmutableArray();
         progress?.Report(new MonteCarloProgress(completed, n));
         return new MonteCarloResult(settings, parameters, at, completed, cancelled, passed, [.. dists], worst, indices.Count(i => fast[i]), clock.Elapsed.TotalSeconds,
             settings.KeepAllSamples ? [.. indices.Select(i => SampleOf(parameters, settings, i, figures[i], failures[i]))] : [], cancelStopS);
+    }
+
+    /// <summary>
+    /// The <paramref name="count"/> worst samples, worst first: failing before passing, then the smallest phase margin
+    /// (none counts as smallest), ties in sample order. A bounded insertion, not a sort of every sample.
+    /// </summary>
+    private static List<int> WorstSamples(List<int> indices, LoopFigures?[] figures, ImmutableArray<string>[] failures, int count)
+    {
+        var kept = new List<(int Pass, double Pm, int Index)>(count + 1);
+        foreach (int i in indices)
+        {
+            var key = (Pass: figures[i] is not null && failures[i].IsEmpty ? 1 : 0, Pm: figures[i]?.PhaseMarginDeg ?? double.NegativeInfinity, Index: i);
+            if (count == 0 || (kept.Count == count && !Before(key, kept[^1])))
+            {
+                continue;
+            }
+
+            int at = kept.Count;
+            while (at > 0 && Before(key, kept[at - 1]))
+            {
+                at--;
+            }
+
+            kept.Insert(at, key);
+            if (kept.Count > count)
+            {
+                kept.RemoveAt(kept.Count - 1);
+            }
+        }
+
+        return kept.ConvertAll(k => k.Index);
+
+        static bool Before((int Pass, double Pm, int Index) a, (int Pass, double Pm, int Index) b)
+            => a.Pass != b.Pass ? a.Pass < b.Pass : a.Pm < b.Pm;
     }
 
     /// <summary>The factors of sample <paramref name="index"/>: uniform in [low, high], or normal about the centre with sigma = (high - low) / 6.</summary>
