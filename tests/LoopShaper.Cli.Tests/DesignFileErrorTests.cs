@@ -355,20 +355,9 @@ public class DesignFileErrorTests
         Assert.True(read.Errors.IsEmpty, string.Join("\n", read.Errors));
     }
 
-    private static DesignFileResult Read(Action<JsonNode> change)
-    {
-        var j = JsonNode.Parse(Valid)!;
-        change(j);
-        return DesignFile.Read(j.ToJsonString());
-    }
+    private static DesignFileResult Read(Action<JsonNode> change) => DesignFileEdits.Read(Valid, change);
 
-    private static List<ValidationIssue> Errors(Action<JsonNode> change)
-    {
-        var read = Read(change);
-        Assert.Null(read.Design);
-        return [.. read.Errors];
-    }
+    private static List<ValidationIssue> Errors(Action<JsonNode> change) => DesignFileEdits.Errors(Valid, change);
 
-    private static ValidationIssue Single(List<ValidationIssue> errors, string path)
-        => Assert.Single(errors, i => i.Field == path);
+    private static ValidationIssue Single(List<ValidationIssue> errors, string path) => DesignFileEdits.OnlyAt(errors, path);
 }

@@ -200,21 +200,9 @@ public class SynthesisSectionTests
         Assert.Contains($"{bad.Path}: error: $.synthesis.searchSteps: 7 is out of range: allowed 1 to 3.", range.Error, StringComparison.Ordinal);
     }
 
-    private static DesignFileResult Read(Action<JsonNode> change)
-    {
-        var j = JsonNode.Parse(File.ReadAllText(RepoFiles.Example(WithSection)))!;
-        change(j);
-        var read = DesignFile.Read(j.ToJsonString());
-        return read;
-    }
+    private static DesignFileResult Read(Action<JsonNode> change) => DesignFileEdits.Read(File.ReadAllText(RepoFiles.Example(WithSection)), change);
 
-    private static List<ValidationIssue> Errors(Action<JsonNode> change)
-    {
-        var read = Read(change);
-        Assert.Null(read.Design);
-        return [.. read.Errors];
-    }
+    private static List<ValidationIssue> Errors(Action<JsonNode> change) => DesignFileEdits.Errors(File.ReadAllText(RepoFiles.Example(WithSection)), change);
 
-    private static ValidationIssue Single(List<ValidationIssue> errors, string path)
-        => Assert.Single(errors, i => i.Field == path);
+    private static ValidationIssue Single(List<ValidationIssue> errors, string path) => DesignFileEdits.OnlyAt(errors, path);
 }

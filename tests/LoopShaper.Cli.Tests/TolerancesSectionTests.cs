@@ -255,20 +255,9 @@ public class TolerancesSectionTests
             .ToDictionary(r => r.GetProperty("label").GetString()!, r => (N(r, "crossoverHz"), N(r, "phaseMarginDeg"), N(r, "upperGainMarginDb")));
     }
 
-    private static DesignFileResult Read(Action<JsonNode> change)
-    {
-        var j = JsonNode.Parse(File.ReadAllText(RepoFiles.Example(WithSection)))!;
-        change(j);
-        return DesignFile.Read(j.ToJsonString());
-    }
+    private static DesignFileResult Read(Action<JsonNode> change) => DesignFileEdits.Read(File.ReadAllText(RepoFiles.Example(WithSection)), change);
 
-    private static List<ValidationIssue> Errors(Action<JsonNode> change)
-    {
-        var read = Read(change);
-        Assert.Null(read.Design);
-        return [.. read.Errors];
-    }
+    private static List<ValidationIssue> Errors(Action<JsonNode> change) => DesignFileEdits.Errors(File.ReadAllText(RepoFiles.Example(WithSection)), change);
 
-    private static ValidationIssue Single(List<ValidationIssue> errors, string path)
-        => Assert.Single(errors, i => i.Field == path);
+    private static ValidationIssue Single(List<ValidationIssue> errors, string path) => DesignFileEdits.OnlyAt(errors, path);
 }
