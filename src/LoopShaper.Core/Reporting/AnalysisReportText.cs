@@ -96,7 +96,7 @@ public static class AnalysisReportText
                     .Append(k.Actual).Append("  (limit ").Append(k.Limit).Append(", ").Append(k.Path).Append(")\n");
             }
 
-            t.Append(report.MeetsCriteria ? "  Result: the design meets every criterion.\n" : "  Result: the design does NOT meet every criterion.\n");
+            t.Append(report.MeetsCriteria ? "  Result at the analysed operating point: the design meets every criterion.\n" : "  Result at the analysed operating point: the design does NOT meet every criterion.\n");
         }
 
         var inputWarnings = report.Issues.Where(i => i.Severity == "warning").ToList();
