@@ -99,6 +99,15 @@ await page.EvaluateAsync(@"() => {
 string[] inductances = ["270 nH", "330 nH", "390 nH", "470 nH"];
 string[] zeros = ["3.3k", "3.9k", "4.7k", "5.6k"];
 var times = new List<double>();
+ICDPSession? profiler = null;
+if (Environment.GetEnvironmentVariable("BENCH_PROFILE") == "1")
+{
+    // The browser's CPU profile over all the changes, written to the temp folder (look at it with any .cpuprofile viewer).
+    profiler = await page.Context.NewCDPSessionAsync(page);
+    await profiler.SendAsync("Profiler.enable");
+    await profiler.SendAsync("Profiler.start");
+}
+
 for (int i = 0; i < changes; i++)
 {
     string id = i % 2 == 0 ? "f-plant-powerStage-inductor-inductanceH" : "f-compensator-zero1Hz";
@@ -122,6 +131,13 @@ for (int i = 0; i < changes; i++)
       })();
     })", new object[] { id, value });
     times.Add(ms);
+}
+
+if (profiler is not null && await profiler.SendAsync("Profiler.stop") is System.Text.Json.JsonElement cpu)
+{
+    string file = Path.Combine(Path.GetTempPath(), "loopshaper-changes.cpuprofile");
+    await File.WriteAllTextAsync(file, cpu.GetProperty("profile").GetRawText());
+    Console.WriteLine("browser profile: " + file);
 }
 
 var react = await page.EvaluateAsync<System.Text.Json.JsonElement>("() => window.__react");
