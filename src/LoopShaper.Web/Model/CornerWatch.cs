@@ -27,7 +27,7 @@ public sealed class CornerWatch : IDisposable
     public event Action? Changed;
 
     /// <summary>How long an analysis must stay the latest before it is swept, ms.</summary>
-    public int SettleMs { get; init; } = 300;
+    public int SettleMs { get; init; } = DesignerDefaults.SettleMs;
 
     /// <summary>Threads a sweep may use; null takes half the cores (the server is shared by every open workspace).</summary>
     public int? Threads { get; init; }

@@ -8,4 +8,10 @@ public static class DesignerDefaults
 
     /// <summary>Largest design file accepted by the upload, bytes.</summary>
     public const long MaxUploadBytes = 1024 * 1024;
+
+    /// <summary>
+    /// How long a design must stay unchanged before the background panels (corner sweep, closed-loop performance)
+    /// analyse it, ms: while the engineer types or drags, both cores go to the loop-gain and step charts.
+    /// </summary>
+    public const int SettleMs = 300;
 }

@@ -38,7 +38,7 @@ public sealed partial class ClosedLoopPanel : IDisposable
     /// operating point start at once.
     /// </summary>
     [Parameter]
-    public int SettleMs { get; set; } = 300;
+    public int SettleMs { get; set; } = DesignerDefaults.SettleMs;
 
     /// <summary>The selected operating point: <see cref="ClosedLoopPoint.Main"/> or a corner's key.</summary>
     public string Choice { get; private set; } = ClosedLoopPoint.Main;
