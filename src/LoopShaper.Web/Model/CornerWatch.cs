@@ -4,14 +4,15 @@ using LoopShaper.Core.Design;
 namespace LoopShaper.Web.Model;
 
 /// <summary>
-/// The corner sweep of the open design, kept current in the background: every new valid analysis is swept
-/// (<see cref="CornerSweep.Run"/>) once it has stayed the latest for <see cref="SettleMs"/>, so that typing and dragging
-/// leave the cores to the loop-gain and step charts. The summary's corner verdict and the Corners card read the same
-/// table, the one `analyze` judges on the command line.
+/// The corner sweep of the open design, kept current in the background: every new valid analysis is swept (<see
+/// cref="CornerSweep.Run"/>) once it has stayed the latest for <see cref="SettleMs"/>, so that typing and dragging
+/// leave the cores to the loop-gain and step charts; a new analysis stops a sweep still running. The summary's corner
+/// verdict and the Corners card read the same table, the one `analyze` judges on the command line.
 /// </summary>
 public sealed class CornerWatch : IDisposable
 {
     private readonly object _gate = new();
+    private readonly ILogger _logger;
     private DesignAnalysis? _latest;
     private DesignAnalysis? _sweeping;
     private bool _disposed;
@@ -19,6 +20,7 @@ public sealed class CornerWatch : IDisposable
     /// <summary>A watch whose sweeps log their failures to <paramref name="logger"/>.</summary>
     public CornerWatch(ILogger logger)
     {
+        _logger = logger;
         Run = new BackgroundRun<CornerTable>(logger);
         Run.Changed += () => Changed?.Invoke();
     }
@@ -66,6 +68,13 @@ public sealed class CornerWatch : IDisposable
             _latest = analysis;
         }
 
+        // A sweep of an older design is of no use any more, and its core is wanted by the change being drawn; the last
+        // finished table stays shown until the sweep of this analysis, once it has settled, replaces it.
+        if (Run.IsRunning)
+        {
+            Run.Cancel();
+        }
+
         return SweepWhenSettled(analysis);
     }
 
@@ -98,6 +107,11 @@ public sealed class CornerWatch : IDisposable
         }
 
         var design = analysis.Design;
+        if (_logger.IsEnabled(LogLevel.Debug))
+        {
+            _logger.LogDebug("Sweeping the corners of '{Name}'", design.Name);
+        }
+
         var options = new CornerSweepOptions(MaxDegreeOfParallelism: Threads ?? Math.Max(1, Environment.ProcessorCount / 2));
         await Run.Start((progress, token) => CornerSweep.Run(design, options, token)).ConfigureAwait(false);
     }
