@@ -18,6 +18,9 @@ public static class PlotlyModule
         module.SetupVoid("react", _ => true).SetVoidResult();
         module.SetupVoid("subscribeClickEvent", _ => true).SetVoidResult();
         module.SetupVoid("purge", _ => true).SetVoidResult();
+        var visibility = js.SetupModule(LoopShaper.Web.Components.Controls.LiveChart.VisibilityModule);
+        visibility.SetupVoid("watch", _ => true).SetVoidResult();
+        visibility.SetupVoid("unwatch", _ => true).SetVoidResult();
         return module;
     }
 

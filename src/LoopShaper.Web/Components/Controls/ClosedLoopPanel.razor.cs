@@ -3,7 +3,6 @@ using LoopShaper.Core.Loop;
 using LoopShaper.Core.Units;
 using LoopShaper.Web.Model.Charts;
 using Microsoft.AspNetCore.Components;
-using Plotly.Blazor;
 
 namespace LoopShaper.Web.Components.Controls;
 
@@ -14,19 +13,13 @@ namespace LoopShaper.Web.Components.Controls;
 /// </summary>
 public sealed partial class ClosedLoopPanel : IDisposable
 {
-    private PlotlyChart? _frequencyChart;
-    private PlotlyChart? _transientChart;
     private ChartFigure _frequency = ClosedLoopFigure.Build(null, 0, 0);
     private ChartFigure _transient = TransientFigure.Build(null);
-    private ChartFigure? _frequencyHas;
-    private ChartFigure? _transientHas;
     private DesignAnalysis? _builtFrom;
     private string? _builtChoice;
     private CancellationTokenSource? _cts;
     private bool _computing;
     private string? _error;
-    private bool _frequencyDrawn;
-    private bool _transientDrawn;
 
     /// <summary>The analysis whose design is shown (a valid one).</summary>
     [Parameter, EditorRequired]
@@ -75,29 +68,6 @@ public sealed partial class ClosedLoopPanel : IDisposable
         if (!ReferenceEquals(Analysis, _builtFrom) || Choice != _builtChoice)
         {
             await Recompute(_builtFrom is null ? 0 : SettleMs);
-        }
-    }
-
-    /// <inheritdoc />
-    protected override async Task OnAfterRenderAsync(bool firstRender)
-    {
-        if (firstRender)
-        {
-            // The figures of the first render are the ones the charts' own newPlot draws.
-            _frequencyHas = _frequency;
-            _transientHas = _transient;
-        }
-
-        if (_frequencyDrawn && !ReferenceEquals(_frequencyHas, _frequency))
-        {
-            _frequencyHas = _frequency;
-            await Redraw(_frequencyChart);
-        }
-
-        if (_transientDrawn && !ReferenceEquals(_transientHas, _transient))
-        {
-            _transientHas = _transient;
-            await Redraw(_transientChart);
         }
     }
 
@@ -158,40 +128,4 @@ public sealed partial class ClosedLoopPanel : IDisposable
         await Recompute(0);
     }
 
-    private async void OnFrequencyDrawn()
-    {
-        _frequencyDrawn = true;
-        if (!ReferenceEquals(_frequencyHas, _frequency))
-        {
-            _frequencyHas = _frequency;
-            await Redraw(_frequencyChart);
-        }
-    }
-
-    private async void OnTransientDrawn()
-    {
-        _transientDrawn = true;
-        if (!ReferenceEquals(_transientHas, _transient))
-        {
-            _transientHas = _transient;
-            await Redraw(_transientChart);
-        }
-    }
-
-    private static async Task Redraw(PlotlyChart? chart)
-    {
-        if (chart is null)
-        {
-            return;
-        }
-
-        try
-        {
-            await chart.React();
-        }
-        catch (Exception ex) when (ex is Microsoft.JSInterop.JSDisconnectedException or Microsoft.JSInterop.JSException or TaskCanceledException)
-        {
-            // The circuit or the chart went away; nothing to draw into.
-        }
-    }
 }

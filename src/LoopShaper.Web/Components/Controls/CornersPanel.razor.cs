@@ -4,7 +4,6 @@ using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Units;
 using LoopShaper.Web.Model.Charts;
 using Microsoft.AspNetCore.Components;
-using Plotly.Blazor;
 
 namespace LoopShaper.Web.Components.Controls;
 
@@ -16,14 +15,10 @@ public sealed partial class CornersPanel : IDisposable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    private PlotlyChart? _chart;
     private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
-    private ChartFigure? _firstFigure;
     private CornerTable? _figureOf;
     private CornerWatch? _subscribed;
     private bool _onlyFailing;
-    private bool _drawn;
-    private bool _needsRedraw;
 
     /// <summary>The corner sweep of the open design.</summary>
     [Parameter, EditorRequired]
@@ -63,25 +58,13 @@ public sealed partial class CornersPanel : IDisposable
         }
     }
 
-    /// <inheritdoc />
-    protected override async Task OnAfterRenderAsync(bool firstRender)
-    {
-        if (_drawn && _needsRedraw && _chart is not null)
-        {
-            _needsRedraw = false;
-            await _chart.React();
-        }
-    }
-
     private void UpdateFigure()
     {
         if (Table is CornerTable t && !ReferenceEquals(t, _figureOf))
         {
             var range = Watch.SweptFrom?.Design.Analysis;
             _figure = CornerBodeFigure.Build(t, range?.StartHz ?? 0, range?.StopHz ?? 0);
-            _firstFigure ??= _figure;
             _figureOf = t;
-            _needsRedraw = true;
         }
     }
 
@@ -121,23 +104,4 @@ public sealed partial class CornersPanel : IDisposable
     }
 
     private static string Signed(double v) => (v < 0 ? "\u2212" : "+") + EngineeringFormat.Format(Math.Abs(v), "V");
-
-    private async void OnFirstDraw()
-    {
-        _drawn = true;
-        if (_chart is null || ReferenceEquals(_figure, _firstFigure))
-        {
-            return;
-        }
-
-        try
-        {
-            _needsRedraw = false;
-            await _chart.React();
-        }
-        catch (Exception ex) when (ex is Microsoft.JSInterop.JSDisconnectedException or Microsoft.JSInterop.JSException or TaskCanceledException)
-        {
-            // The circuit or the chart went away; nothing to draw into.
-        }
-    }
 }

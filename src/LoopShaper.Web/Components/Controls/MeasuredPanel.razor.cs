@@ -5,7 +5,6 @@ using LoopShaper.Core.Units;
 using LoopShaper.Web.Model.Charts;
 using Microsoft.AspNetCore.Components;
 using Microsoft.AspNetCore.Components.Forms;
-using Plotly.Blazor;
 
 namespace LoopShaper.Web.Components.Controls;
 
@@ -24,11 +23,7 @@ public sealed partial class MeasuredPanel
     private MeasurementComparison? _comparison;
     private DesignAnalysis? _comparedAnalysis;
     private MeasuredSet? _comparedMeasured;
-    private PlotlyChart? _chart;
     private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
-    private ChartFigure? _firstFigure;
-    private bool _drawn;
-    private bool _needsRedraw;
     private MeasuredQuantity _quantity = MeasuredQuantity.LoopGain;
 
     /// <summary>The latest analysis (null while computing).</summary>
@@ -62,43 +57,10 @@ public sealed partial class MeasuredPanel
             if (_comparison is not null)
             {
                 _figure = DifferenceFigure.Build(_comparison);
-                _firstFigure ??= _figure;
-                _needsRedraw = true;
             }
             else
             {
-                _drawn = false;
-                _firstFigure = null;
             }
-        }
-    }
-
-    /// <inheritdoc />
-    protected override async Task OnAfterRenderAsync(bool firstRender)
-    {
-        if (_drawn && _needsRedraw && _chart is not null)
-        {
-            _needsRedraw = false;
-            await _chart.React();
-        }
-    }
-
-    private async void OnFirstDraw()
-    {
-        _drawn = true;
-        if (_chart is null || ReferenceEquals(_figure, _firstFigure))
-        {
-            return;
-        }
-
-        try
-        {
-            _needsRedraw = false;
-            await _chart.React();
-        }
-        catch (Exception ex) when (ex is Microsoft.JSInterop.JSDisconnectedException or Microsoft.JSInterop.JSException or TaskCanceledException)
-        {
-            // The circuit or the chart went away; nothing to draw into.
         }
     }
 

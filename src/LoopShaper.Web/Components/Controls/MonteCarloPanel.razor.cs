@@ -5,7 +5,6 @@ using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Units;
 using LoopShaper.Web.Model.Charts;
 using Microsoft.AspNetCore.Components;
-using Plotly.Blazor;
 
 namespace LoopShaper.Web.Components.Controls;
 
@@ -18,15 +17,11 @@ public sealed partial class MonteCarloPanel : IDisposable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    private PlotlyChart? _chart;
     private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
-    private ChartFigure? _firstFigure;
     private MonteCarloResult? _figureOf;
     private BackgroundRun<MonteCarloResult>? _run;
     private LoopDesign? _previous;
     private int _openedIndex;
-    private bool _drawn;
-    private bool _needsRedraw;
 
     /// <summary>The open design.</summary>
     [Parameter, EditorRequired]
@@ -125,23 +120,11 @@ public sealed partial class MonteCarloPanel : IDisposable
         {
             double? fs = Analysis?.Design.Plant is BuckPlant b ? b.PowerStage.SwitchingFrequencyHz : null;
             _figure = HistogramFigure.Build(r, Analysis?.Design.Criteria ?? new DesignCriteria(), fs);
-            _firstFigure ??= _figure;
             _figureOf = r;
-            _needsRedraw = true;
         }
 
         StateHasChanged();
     });
-
-    /// <inheritdoc />
-    protected override async Task OnAfterRenderAsync(bool firstRender)
-    {
-        if (_drawn && _needsRedraw && _chart is not null)
-        {
-            _needsRedraw = false;
-            await _chart.React();
-        }
-    }
 
     private static string FigureName(string figure) => figure switch
     {
@@ -172,22 +155,4 @@ public sealed partial class MonteCarloPanel : IDisposable
 
     private static string Seconds(double s) => EngineeringFormat.Format(s, "s");
 
-    private async void OnFirstDraw()
-    {
-        _drawn = true;
-        if (_chart is null || ReferenceEquals(_figure, _firstFigure))
-        {
-            return;
-        }
-
-        try
-        {
-            _needsRedraw = false;
-            await _chart.React();
-        }
-        catch (Exception ex) when (ex is Microsoft.JSInterop.JSDisconnectedException or Microsoft.JSInterop.JSException or TaskCanceledException)
-        {
-            // The circuit or the chart went away; nothing to draw into.
-        }
-    }
 }

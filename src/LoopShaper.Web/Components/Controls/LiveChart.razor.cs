@@ -1,0 +1,181 @@
+using LoopShaper.Web.Model.Charts;
+using Microsoft.AspNetCore.Components;
+using Microsoft.JSInterop;
+using Plotly.Blazor;
+
+namespace LoopShaper.Web.Components.Controls;
+
+/// <summary>
+/// A Plotly chart that follows its figure: drawn by the chart's own newPlot first, then redrawn with Plotly.react
+/// whenever a new figure arrives. With <see cref="DeferOffscreen"/>, a chart out of sight is not redrawn (nor its figure
+/// sent) until it scrolls into view: the workspace's secondary cards then cost nothing while the engineer tunes the loop.
+/// </summary>
+public sealed partial class LiveChart : IAsyncDisposable
+{
+    /// <summary>Path of the visibility module, relative to the app's base.</summary>
+    public const string VisibilityModule = "./js/chart-visibility.js";
+
+    private readonly Plotly.Blazor.Config _config = ChartConfig.Interactive;
+    private PlotlyChart? _chart;
+    private ChartFigure? _firstFigure;
+    private ChartFigure? _shown;
+    private IJSObjectReference? _module;
+    private DotNetObjectReference<LiveChart>? _self;
+    private bool _drawn;
+    private bool _visible = true;
+    private bool _disposed;
+    private readonly object _gate = new();
+    private ChartFigure? _queued;
+    private bool _sending;
+
+    /// <summary>Element id of the chart.</summary>
+    [Parameter, EditorRequired]
+    public string Id { get; set; } = default!;
+
+    /// <summary>The figure to show.</summary>
+    [Parameter, EditorRequired]
+    public ChartFigure Figure { get; set; } = default!;
+
+    /// <summary>CSS class of the chart's element (its size).</summary>
+    [Parameter]
+    public string? CssClass { get; set; }
+
+    /// <summary>Leave the chart as it is while it is out of sight; redraw it when it comes into view.</summary>
+    [Parameter]
+    public bool DeferOffscreen { get; set; } = true;
+
+    /// <summary>The figure the browser shows (the first one until the chart has been drawn).</summary>
+    public ChartFigure? Shown => _shown;
+
+    /// <summary>True when the browser shows an older figure than <see cref="Figure"/>.</summary>
+    public bool IsStale => !ReferenceEquals(_shown, Figure);
+
+    /// <summary>The send of the newest figure (completes when the browser has it).</summary>
+    public Task Sending { get; private set; } = Task.CompletedTask;
+
+    /// <summary>Whether the chart was last reported on the screen (true until the browser says otherwise).</summary>
+    public bool IsVisible => _visible;
+
+    [Inject]
+    private IJSRuntime Js { get; set; } = default!;
+
+    /// <summary>Called by the visibility module when the chart comes into or goes out of view.</summary>
+    [JSInvokable]
+    public Task OnVisibility(bool visible)
+    {
+        _visible = visible;
+        return visible ? InvokeAsync(RedrawIfStale) : Task.CompletedTask;
+    }
+
+    /// <inheritdoc />
+    public async ValueTask DisposeAsync()
+    {
+        _disposed = true;
+        if (_module is not null)
+        {
+            try
+            {
+                await _module.InvokeVoidAsync("unwatch", Id);
+                await _module.DisposeAsync();
+            }
+            catch (Exception ex) when (ex is JSDisconnectedException or JSException or TaskCanceledException or ObjectDisposedException)
+            {
+                // The circuit went away with the page; nothing left to unwatch.
+            }
+        }
+
+        _self?.Dispose();
+    }
+
+    /// <inheritdoc />
+    protected override void OnParametersSet()
+    {
+        _firstFigure ??= Figure;
+        RedrawIfStale();
+    }
+
+    /// <inheritdoc />
+    protected override async Task OnAfterRenderAsync(bool firstRender)
+    {
+        if (firstRender && DeferOffscreen)
+        {
+            try
+            {
+                _module = await Js.InvokeAsync<IJSObjectReference>("import", VisibilityModule);
+                _self = DotNetObjectReference.Create(this);
+                await _module.InvokeVoidAsync("watch", Id, _self);
+            }
+            catch (Exception ex) when (ex is JSDisconnectedException or JSException or TaskCanceledException)
+            {
+                // Without the module the chart is simply always redrawn.
+            }
+        }
+    }
+
+    private void OnFirstDraw()
+    {
+        _drawn = true;
+        _shown = _firstFigure;
+        RedrawIfStale();
+    }
+
+    /// <summary>
+    /// Sends the figure now, from the thread pool, so that its serialization and trip run beside the rest of the page's
+    /// render instead of after the browser has applied it. One send per chart at a time; figures that arrive meanwhile
+    /// collapse into the newest, so a fast drag never queues stale frames in the browser.
+    /// </summary>
+    private void RedrawIfStale()
+    {
+        if (_disposed || !_drawn || _chart is null || !IsStale || (DeferOffscreen && !_visible))
+        {
+            return;
+        }
+
+        _shown = Figure;
+        lock (_gate)
+        {
+            _queued = Figure;
+            if (_sending)
+            {
+                return;
+            }
+
+            _sending = true;
+        }
+
+        Sending = Task.Run(SendQueued);
+    }
+
+    private async Task SendQueued()
+    {
+        var chart = _chart!;
+        while (true)
+        {
+            ChartFigure? figure;
+            lock (_gate)
+            {
+                figure = _queued;
+                _queued = null;
+                if (figure is null || _disposed)
+                {
+                    _sending = false;
+                    return;
+                }
+            }
+
+            try
+            {
+#pragma warning disable BL0005 // The chart's figure is set here, outside a render, so that it can be sent before the render ends.
+                chart.Data = figure.Data;
+                chart.Layout = figure.Layout;
+#pragma warning restore BL0005
+                await chart.React();
+            }
+
+            catch (Exception ex) when (ex is JSDisconnectedException or JSException or TaskCanceledException or ObjectDisposedException)
+            {
+                // The circuit or the chart went away; nothing to draw into.
+            }
+        }
+    }
+}
