@@ -51,6 +51,38 @@ public sealed class CornersAndMonteCarloTests(WorkspaceFixture fixture) : IAsync
     }
 
     [Fact]
+    public async Task A_corner_chart_out_of_sight_waits_and_is_redrawn_when_it_comes_into_view()
+    {
+        var page = await OpenAsync();
+        await page.WaitForSelectorAsync("[data-corner-table]", new PageWaitForSelectorOptions { Timeout = 120_000 });
+        await page.WaitForSelectorAsync("#corner-bode-chart .main-svg");
+        const string drawn = "() => JSON.stringify(document.getElementById('corner-bode-chart').data.map(t => t.y))";
+        const string offscreen = "() => { const r = document.getElementById('corner-bode-chart').getBoundingClientRect(); return r.top > 1.25 * innerHeight || r.bottom < -0.25 * innerHeight; }";
+        string before = await page.EvaluateAsync<string>(drawn);
+        Assert.True(await page.EvaluateAsync<bool>(offscreen), "the Corners card starts below the first screen");
+        string firstRow = await page.InnerTextAsync("[data-corner-row]");
+
+        await page.FillAsync(Inductance, "470 nH");
+        // The table (plain HTML) follows once the new design has settled and been swept; the chart out of sight waits.
+        await page.WaitForFunctionAsync(
+            "text => { const r = document.querySelector('[data-corner-row]'); return r && r.innerText !== text && document.querySelector('[data-corners-panel=finished]'); }",
+            firstRow,
+            new PageWaitForFunctionOptions { Timeout = 120_000 });
+        await page.WaitForTimeoutAsync(1000);
+        Assert.Equal(before, await page.EvaluateAsync<string>(drawn));
+
+        var card = page.Locator("section.card", new PageLocatorOptions { Has = page.Locator("[data-corners-panel]") });
+        await card.ScrollIntoViewIfNeededAsync();
+        await page.WaitForFunctionAsync(
+            "before => JSON.stringify(document.getElementById('corner-bode-chart').data.map(t => t.y)) !== before",
+            before,
+            new PageWaitForFunctionOptions { Timeout = 30_000 });
+        await page.WaitForTimeoutAsync(400);
+        await card.ScreenshotAsync(new LocatorScreenshotOptions { Path = Path.Combine(ShotDir, "11-corners-after-change.png") });
+        AssertNoConsoleErrors();
+    }
+
+    [Fact]
     public async Task A_long_monte_carlo_run_cancels_promptly_and_the_page_keeps_recomputing()
     {
         var page = await OpenAsync();

@@ -40,6 +40,10 @@ public sealed partial class LiveChart : IAsyncDisposable
     [Parameter]
     public string? CssClass { get; set; }
 
+    /// <summary>Called with the points of a click on the chart, or null for a chart that takes no clicks.</summary>
+    [Parameter]
+    public Action<IEnumerable<Plotly.Blazor.Interop.EventDataPoint>>? ClickAction { get; set; }
+
     /// <summary>Leave the chart as it is while it is out of sight; redraw it when it comes into view.</summary>
     [Parameter]
     public bool DeferOffscreen { get; set; } = true;
@@ -112,11 +116,22 @@ public sealed partial class LiveChart : IAsyncDisposable
         }
     }
 
-    private void OnFirstDraw()
+    private async void OnFirstDraw()
     {
         _drawn = true;
         _shown = _firstFigure;
         RedrawIfStale();
+        if (ClickAction is not null && _chart is not null)
+        {
+            try
+            {
+                await _chart.SubscribeClickEvent();
+            }
+            catch (Exception ex) when (ex is JSDisconnectedException or JSException or TaskCanceledException)
+            {
+                // The circuit or the chart went away while it was being set up.
+            }
+        }
     }
 
     /// <summary>
