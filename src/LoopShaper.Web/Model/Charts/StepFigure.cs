@@ -24,6 +24,12 @@ public static class StepFigure
     /// <summary>Reference-step trace name.</summary>
     public const string ReferenceName = "reference step";
 
+    /// <summary>Name of the load-step panel's marks trace (final value, settling time, peak).</summary>
+    public const string LoadMarksName = "load-step marks";
+
+    /// <summary>Name of the reference-step panel's marks trace (final value, settling time, peak).</summary>
+    public const string ReferenceMarksName = "reference-step marks";
+
     /// <summary>Most points drawn per response; longer ones are thinned keeping each bucket's extremes.</summary>
     public const int MaxPoints = 400;
 
@@ -85,7 +91,7 @@ public static class StepFigure
 
         // The marks of a panel are one trace (ChartMarks): the final value and the settling time as dashed lines, the
         // peak as a dot, their figures as the trace's text (plotly.js redraws that far faster than extra traces and annotations).
-        var marks = new ChartMarks(name + " marks", x, y, new Line { Color = ChartPalette.Reference, Width = 1.4m, Dash = "dash" });
+        var marks = new ChartMarks(isLoad ? LoadMarksName : ReferenceMarksName, x, y, new Line { Color = ChartPalette.Reference, Width = 1.4m, Dash = "dash" });
         var m = r.Metrics;
         if (m.FinalValue is double final && double.IsFinite(final) && r.TimeS.Length > 1)
         {
