@@ -61,9 +61,12 @@ public sealed class ChartPayloadTests : BunitContext
         Assert.Contains("magnitude (dB)", text, StringComparison.Ordinal);
         Assert.Contains("phase (deg)", text, StringComparison.Ordinal);
 
-        // The phase margin annotation carries the core's figure.
+        // The phase margin label (text of the phase panel's marks trace) carries the core's figure; no shapes or annotations are sent.
         string pm = analysis.Margins!.PhaseMarginDeg!.Value.ToString("F1", System.Globalization.CultureInfo.InvariantCulture);
-        Assert.Contains("PM " + pm, text, StringComparison.Ordinal);
+        var phaseMarks = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.PhaseMarksName);
+        Assert.Contains(phaseMarks.GetProperty("text").EnumerateArray(), t => t.GetString()!.Contains("PM " + pm, StringComparison.Ordinal));
+        Assert.False(layout.RootElement.TryGetProperty("shapes", out var shapes) && shapes.ValueKind == JsonValueKind.Array && shapes.GetArrayLength() > 0);
+        Assert.False(layout.RootElement.TryGetProperty("annotations", out var notes) && notes.ValueKind == JsonValueKind.Array && notes.GetArrayLength() > 0);
     }
 
     [Fact]
@@ -75,11 +78,14 @@ public sealed class ChartPayloadTests : BunitContext
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
 
         using var data = Json(module.Invocations["newPlot"].Single().Arguments[1]);
-        var zeros = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == "compensator zeros");
-        var poles = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == "compensator poles");
+        // They are points of the magnitude panel's marks trace, told apart by their hover text.
+        var marks = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.MagnitudeMarksName);
+        var x = marks.GetProperty("x").EnumerateArray().ToList();
+        var hover = marks.GetProperty("hovertext").EnumerateArray().Select(v => v.GetString()).ToList();
+        double[] At(string what) => [.. Enumerable.Range(0, x.Count).Where(i => hover[i] == what).Select(i => x[i].GetDouble())];
         var placement = analysis.ResolvedPlacement!;
-        Assert.Equal(new[] { placement.Zero1Hz!.Value, placement.Zero2Hz!.Value }, zeros.GetProperty("x").EnumerateArray().Select(v => v.GetDouble()));
-        Assert.Equal(new[] { placement.Pole1Hz!.Value, placement.Pole2Hz!.Value }, poles.GetProperty("x").EnumerateArray().Select(v => v.GetDouble()));
+        Assert.Equal(new[] { placement.Zero1Hz!.Value, placement.Zero2Hz!.Value }, At("compensator zero"));
+        Assert.Equal(new[] { placement.Pole1Hz!.Value, placement.Pole2Hz!.Value }, At("compensator pole"));
     }
 
     [Fact]
@@ -130,8 +136,10 @@ public sealed class ChartPayloadTests : BunitContext
         using var layout = Json(call.Arguments[2]);
         var text = layout.RootElement.GetRawText();
         Assert.Contains("time (s)", text, StringComparison.Ordinal);
-        Assert.Contains("overshoot " + analysis.ReferenceStep!.Metrics.OvershootPct!.Value.ToString("F1", System.Globalization.CultureInfo.InvariantCulture) + " %", text, StringComparison.Ordinal);
-        Assert.Contains("settled (2 %)", text, StringComparison.Ordinal);
+        var labels = data.RootElement.EnumerateArray().Where(t => t.TryGetProperty("text", out var v) && v.ValueKind == JsonValueKind.Array)
+            .SelectMany(t => t.GetProperty("text").EnumerateArray().Select(v => v.GetString())).ToList();
+        Assert.Contains("overshoot " + analysis.ReferenceStep!.Metrics.OvershootPct!.Value.ToString("F1", System.Globalization.CultureInfo.InvariantCulture) + " %", labels);
+        Assert.Equal(2, labels.Count(l => l!.StartsWith("settled (2 %) ", StringComparison.Ordinal)));
     }
 
     [Fact]

@@ -4,13 +4,11 @@ using System.Numerics;
 using LoopShaper.Core.Analysis;
 using LoopShaper.Core.Compensators;
 using LoopShaper.Core.Design;
-using LoopShaper.Core.TransferFunctions;
 using LoopShaper.Core.Units;
 using Plotly.Blazor;
 using Plotly.Blazor.LayoutLib;
 using Plotly.Blazor.Traces;
 using Plotly.Blazor.Traces.ScatterLib;
-using AnnotationFont = Plotly.Blazor.LayoutLib.AnnotationLib.Font;
 using AxisTitle = Plotly.Blazor.LayoutLib.YAxisLib.Title;
 using MarkerSymbol = Plotly.Blazor.Traces.ScatterLib.MarkerLib.SymbolEnum;
 
@@ -38,6 +36,18 @@ public static class BodeFigure
     /// <summary>Loop trace name with an ideal amplifier.</summary>
     public const string IdealLoopName = "T, ideal amplifier";
 
+    /// <summary>Name of the trace with every mark of the magnitude panel (crossover lines, margins, poles and zeros).</summary>
+    public const string MagnitudeMarksName = "magnitude marks";
+
+    /// <summary>Name of the trace with every mark of the phase panel (crossover lines, the -180 degree line, margins).</summary>
+    public const string PhaseMarksName = "phase marks";
+
+    /// <summary>Hover of the marks: what the point is and its frequency.</summary>
+    public const string MarksHover = "%{hovertext} %{x:.4s}Hz<extra></extra>";
+
+    /// <summary>Size of the ring around the selected marker, px.</summary>
+    public const int SelectedRingSize = 26;
+
     /// <summary>Most points drawn per trace.</summary>
     public const int MaxPoints = 500;
 
@@ -52,13 +62,11 @@ public static class BodeFigure
     {
         var data = new List<ITrace>();
         var hits = new List<MarkerHit>();
-        var annotations = new List<Annotation>();
-        var shapes = new List<Shape>();
         if (analysis.LoopResponse is not FrequencyResponse loop || analysis.PlantResponse is not FrequencyResponse plant
             || analysis.CompensatorResponse is not FrequencyResponse comp || analysis.Margins is not StabilityMargins margins
             || analysis.Loop is null)
         {
-            return new ChartFigure(data, BaseLayout((-60, 60), (-270, 0), annotations, shapes, analysis), []);
+            return new ChartFigure(data, BaseLayout((-60, 60), (-270, 0), analysis), []);
         }
 
         var visible = new List<FrequencyResponse>();
@@ -99,52 +107,63 @@ public static class BodeFigure
         var magRange = BodeAxes.MagnitudeRange(visible.SelectMany(r => r.MagnitudeDb));
         var phaseRange = BodeAxes.PhaseRange(visible.SelectMany(r => r.PhaseDeg));
 
-        // Gain crossovers: a dashed line through both panels, a dot at 0 dB and the phase margin beside the phase.
-        var fcs = margins.GainCrossovers.Select(g => g.FrequencyHz).ToArray();
-        var f180s = margins.PhaseCrossovers.Select(p => p.FrequencyHz).ToArray();
-        data.Add(VerticalLines(fcs, magRange, "y", ChartPalette.Margin, "crossover"));
-        data.Add(VerticalLines(fcs, phaseRange, "y2", ChartPalette.Margin, "crossover"));
-        data.Add(Points("crossover", fcs, [.. fcs.Select(_ => 0.0)], "y", ChartPalette.Margin, MarkerSymbol.Circle, 10, false));
-        data.Add(Points("phase at crossover", fcs, [.. margins.GainCrossovers.Select(g => g.PhaseDeg)], "y2", ChartPalette.Margin, MarkerSymbol.Circle, 10, false));
-        data.Add(VerticalLines(f180s, magRange, "y", ChartPalette.GainMargin, "phase crossover"));
-        data.Add(VerticalLines(f180s, phaseRange, "y2", ChartPalette.GainMargin, "phase crossover"));
-        data.Add(Points("|T| at phase crossover", f180s, [.. margins.PhaseCrossovers.Select(p => p.MagnitudeDb)], "y", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
-        data.Add(Points("phase crossover", f180s, [.. margins.PhaseCrossovers.Select(p => p.CriticalPhaseDeg)], "y2", ChartPalette.GainMargin, MarkerSymbol.Square, 10, false));
+        // Every small mark of a panel is one trace (ChartMarks): plotly.js redraws a dozen one-point traces, layout
+        // shapes and annotations far slower than the same marks as points and text of one trace.
+        var magMarks = new ChartMarks(MagnitudeMarksName, "x", "y", ReferenceLine);
+        var phaseMarks = new ChartMarks(PhaseMarksName, "x", "y2", ReferenceLine);
+
+        // Gain crossovers and phase crossovers: a dashed line through both panels.
         foreach (var g in margins.GainCrossovers)
         {
-            bool worst = margins.WorstCrossover == g;
-            annotations.Add(Note(
-                g.FrequencyHz, g.PhaseDeg, "y2",
-                $"fc {FormatHz(g.FrequencyHz)}<br><b>PM {Num(g.PhaseMarginDeg, "F1")}°</b>{(worst && margins.HasMultipleCrossovers ? " (smallest)" : string.Empty)}",
-                ChartPalette.Margin, NearRightEdge(g.FrequencyHz, analysis) ? -80 : 48, -42));
+            magMarks.Segment(g.FrequencyHz, magRange.Min, g.FrequencyHz, magRange.Max, "crossover");
+            phaseMarks.Segment(g.FrequencyHz, phaseRange.Min, g.FrequencyHz, phaseRange.Max, "crossover");
         }
 
-        // Phase crossovers: the magnitude there, and the gain margin.
         foreach (var p in margins.PhaseCrossovers)
         {
-            string kind = p.GainMarginDb >= 0 ? "GM" : "lower GM";
-            int k = annotations.Count(n => n.YRef == "y");
-            int ax = k % 2 == 0 ? -70 : 40;
-            annotations.Add(Note(p.FrequencyHz, p.MagnitudeDb, "y", $"{kind} <b>{Num(p.GainMarginDb, "F1")} dB</b><br>at {FormatHz(p.FrequencyHz)}", ChartPalette.GainMargin, NearRightEdge(p.FrequencyHz, analysis) ? -Math.Abs(ax) - 30 : ax, 48));
+            magMarks.Segment(p.FrequencyHz, magRange.Min, p.FrequencyHz, magRange.Max, "phase crossover");
+            phaseMarks.Segment(p.FrequencyHz, phaseRange.Min, p.FrequencyHz, phaseRange.Max, "phase crossover");
         }
 
-        // The -180 + k 360 degree levels inside the phase panel, and 0 dB.
+        // The -180 + k 360 degree levels inside the phase panel, labelled at the right end; 0 dB is the magnitude axis's zero line.
+        var a = analysis.Design.Analysis;
         for (double level = -180; level >= phaseRange.Min; level -= 360)
         {
             if (level <= phaseRange.Max)
             {
-                shapes.Add(HorizontalLine(level, "y2", ChartPalette.Ink, "dash"));
-                annotations.Add(new Annotation { XRef = "paper", X = 1.0m, XAnchor = Plotly.Blazor.LayoutLib.AnnotationLib.XAnchorEnum.Right, YRef = "y2", Y = level, Text = Num(level, "F0") + "°", ShowArrow = false, YShift = 10, Font = new AnnotationFont { Color = ChartPalette.Ink, Size = 12 } });
+                string label = Num(level, "F0") + "°";
+                phaseMarks.Segment(a.StartHz, level, a.StopHz, level, label, label, Plotly.Blazor.Traces.ScatterLib.TextPositionEnum.TopLeft);
             }
         }
 
-        shapes.Add(HorizontalLine(0, "y", ChartPalette.Ink, "solid"));
+        // A dot at 0 dB on each crossover, and the phase there with the phase margin beside it.
+        foreach (var g in margins.GainCrossovers)
+        {
+            bool worst = margins.WorstCrossover == g;
+            string text = $"fc {FormatHz(g.FrequencyHz)}<br><b>PM {Num(g.PhaseMarginDeg, "F1")}°</b>{(worst && margins.HasMultipleCrossovers ? " (smallest)" : string.Empty)}";
+            magMarks.Point(g.FrequencyHz, 0, MarkerSymbol.Circle, 10, ChartPalette.Margin, "crossover");
+            phaseMarks.Point(g.FrequencyHz, g.PhaseDeg, MarkerSymbol.Circle, 10, ChartPalette.Margin, "phase at crossover", text, Callout.Position(right: !NearRightEdge(g.FrequencyHz, analysis), above: true));
+        }
+
+        // Phase crossovers: the magnitude there with the gain margin beside it, alternately left and right.
+        int k = 0;
+        foreach (var p in margins.PhaseCrossovers)
+        {
+            string kind = p.GainMarginDb >= 0 ? "GM" : "lower GM";
+            string text = $"{kind} <b>{Num(p.GainMarginDb, "F1")} dB</b><br>at {FormatHz(p.FrequencyHz)}";
+            bool right = k++ % 2 == 1 && !NearRightEdge(p.FrequencyHz, analysis);
+            magMarks.Point(p.FrequencyHz, p.MagnitudeDb, MarkerSymbol.Square, 10, ChartPalette.GainMargin, "|T| at phase crossover", text, Callout.Position(right, above: false));
+            phaseMarks.Point(p.FrequencyHz, p.CriticalPhaseDeg, MarkerSymbol.Square, 10, ChartPalette.GainMargin, "phase crossover");
+        }
 
         // Poles and zeros: compensator ones are clickable, plant ones are reference marks.
-        AddPlantSingularities(data, analysis);
-        AddCompensatorSingularities(data, hits, analysis, selected);
+        AddPlantSingularities(magMarks, analysis);
+        int magIndex = data.Count;
+        AddCompensatorSingularities(magMarks, magIndex, hits, analysis, selected);
+        data.Add(magMarks.ToTrace(MarksHover));
+        data.Add(phaseMarks.ToTrace(MarksHover));
 
-        return new ChartFigure(data, BaseLayout(magRange, phaseRange, annotations, shapes, analysis), [.. hits]);
+        return new ChartFigure(data, BaseLayout(magRange, phaseRange, analysis), [.. hits]);
     }
 
     /// <summary>The frequency of a pole or zero given in rad/s: its distance from the origin over 2 pi, Hz.</summary>
@@ -217,16 +236,21 @@ public static class BodeFigure
         }
     }
 
-    private static void AddPlantSingularities(List<ITrace> data, DesignAnalysis analysis)
+    private static void AddPlantSingularities(ChartMarks marks, DesignAnalysis analysis)
     {
         var plant = analysis.Loop!.Plant;
-        var zeros = UpperHalf(plant.Zeros).Select(RootFrequencyHz).Where(f => InRange(f, analysis)).ToArray();
-        var poles = UpperHalf(plant.Poles).Select(RootFrequencyHz).Where(f => InRange(f, analysis)).ToArray();
-        data.Add(Points("plant zeros", zeros, [.. zeros.Select(plant.MagnitudeDb)], "y", ChartPalette.Plant, MarkerSymbol.CircleOpen, 12, true, "plant zero"));
-        data.Add(Points("plant poles", poles, [.. poles.Select(plant.MagnitudeDb)], "y", ChartPalette.Plant, MarkerSymbol.X, 11, true, "plant pole"));
+        foreach (double f in UpperHalf(plant.Zeros).Select(RootFrequencyHz).Where(f => InRange(f, analysis)))
+        {
+            marks.Point(f, plant.MagnitudeDb(f), MarkerSymbol.CircleOpen, 12, ChartPalette.Plant, "plant zero");
+        }
+
+        foreach (double f in UpperHalf(plant.Poles).Select(RootFrequencyHz).Where(f => InRange(f, analysis)))
+        {
+            marks.Point(f, plant.MagnitudeDb(f), MarkerSymbol.X, 11, ChartPalette.Plant, "plant pole");
+        }
     }
 
-    private static void AddCompensatorSingularities(List<ITrace> data, List<MarkerHit> hits, DesignAnalysis analysis, PlacementTarget? selected)
+    private static void AddCompensatorSingularities(ChartMarks marks, int traceIndex, List<MarkerHit> hits, DesignAnalysis analysis, PlacementTarget? selected)
     {
         if (analysis.ResolvedPlacement is not CompensatorPlacement placement)
         {
@@ -256,8 +280,20 @@ public static class BodeFigure
             poles.Add((PlacementTarget.Pole2, p2));
         }
 
-        AddClickable(data, hits, "compensator zeros", zeros, gc, MarkerSymbol.CircleOpen, "zero");
-        AddClickable(data, hits, "compensator poles", poles, gc, MarkerSymbol.X, "pole");
+        // Each clickable marker is one point of the marks trace; the hit map names the quantity behind its index.
+        var drawn = new List<(PlacementTarget Target, double Hz, double Db, string Hover)>();
+        foreach (var (items, symbol, what) in new[] { (zeros, MarkerSymbol.CircleOpen, "compensator zero"), (poles, MarkerSymbol.X, "compensator pole") })
+        {
+            foreach (var (target, hz) in items.Where(i => double.IsFinite(i.Hz) && i.Hz > 0))
+            {
+                double db = gc.MagnitudeDb(hz);
+                if (marks.Point(hz, db, symbol, 15, ChartPalette.Compensator, what) is int index)
+                {
+                    hits.Add(new MarkerHit(traceIndex, index, target));
+                    drawn.Add((target, hz, db, what));
+                }
+            }
+        }
 
         // The gain handle: the crossover target on the loop at 0 dB, otherwise the integrator frequency on Gc.
         var design = analysis.Design.Compensator as CompensatorPlacement;
@@ -270,42 +306,26 @@ public static class BodeFigure
         };
         if (gain is { } g && InRange(g.Hz, analysis))
         {
-            hits.Add(new MarkerHit(data.Count, 0, PlacementTarget.Gain));
-            data.Add(Points("gain handle", [g.Hz], [g.Db], "y", ChartPalette.Loop, MarkerSymbol.Diamond, 14, true, "gain setting (" + design!.Gain.Kind + ")"));
+            string hover = "gain setting (" + design!.Gain.Kind + ")";
+            if (marks.Point(g.Hz, g.Db, MarkerSymbol.Diamond, 14, ChartPalette.Loop, hover) is int index)
+            {
+                hits.Add(new MarkerHit(traceIndex, index, PlacementTarget.Gain));
+                drawn.Add((PlacementTarget.Gain, g.Hz, g.Db, hover));
+            }
         }
 
-        if (selected is PlacementTarget t)
+        // The selected quantity: a dark ring over its marker, drawn after it (on top) and clickable like it.
+        if (selected is PlacementTarget t && drawn.Where(d => d.Target == t).ToList() is [var s] && InRange(s.Hz, analysis))
         {
-            var all = zeros.Concat(poles).ToList();
-            (double Hz, double Db)? at = t == PlacementTarget.Gain ? gain : all.Where(s => s.Target == t).Select(s => ((double, double)?)(s.Hz, gc.MagnitudeDb(s.Hz))).FirstOrDefault();
-            if (at is { } a && InRange(a.Hz, analysis))
+            if (marks.Point(s.Hz, s.Db, MarkerSymbol.CircleOpen, SelectedRingSize, ChartPalette.Ink, "selected: " + s.Hover) is int ring)
             {
-                data.Add(new Scatter
-                {
-                    Name = "selected",
-                    ShowLegend = false,
-                    Mode = ModeFlag.Markers,
-                    X = [a.Hz],
-                    Y = [a.Db],
-                    XAxis = "x",
-                    YAxis = "y",
-                    Marker = new Marker { Symbol = MarkerSymbol.CircleOpen, Size = 26, Color = ChartPalette.Ink, Line = new Plotly.Blazor.Traces.ScatterLib.MarkerLib.Line { Width = 2.5m, Color = ChartPalette.Ink } },
-                    HoverInfo = HoverInfoFlag.Skip,
-                });
+                hits.Add(new MarkerHit(traceIndex, ring, t));
             }
         }
     }
 
-    private static void AddClickable(List<ITrace> data, List<MarkerHit> hits, string name, List<(PlacementTarget Target, double Hz)> items, TransferFunction gc, MarkerSymbol symbol, string what)
-    {
-        var drawable = items.Where(i => double.IsFinite(i.Hz) && i.Hz > 0).ToList();
-        for (int i = 0; i < drawable.Count; i++)
-        {
-            hits.Add(new MarkerHit(data.Count, i, drawable[i].Target));
-        }
-
-        data.Add(Points(name, [.. drawable.Select(i => i.Hz)], [.. drawable.Select(i => gc.MagnitudeDb(i.Hz))], "y", ChartPalette.Compensator, symbol, 15, true, "compensator " + what));
-    }
+    /// <summary>The reference lines of the marks: dashed, dark grey (the markers on them carry the colours).</summary>
+    private static Line ReferenceLine => new() { Color = ChartPalette.Reference, Width = 1.4m, Dash = "dash" };
 
     private static IEnumerable<Complex> UpperHalf(ImmutableArray<Complex> roots) => roots.Where(r => r.Imaginary >= 0);
 
@@ -314,69 +334,7 @@ public static class BodeFigure
 
     private static bool InRange(double hz, DesignAnalysis a) => double.IsFinite(hz) && hz >= a.Design.Analysis.StartHz && hz <= a.Design.Analysis.StopHz;
 
-    private static Scatter Points(string name, double[] x, double[] y, string yAxis, string color, MarkerSymbol symbol, int size, bool legend, string? hoverName = null)
-    {
-        var keep = Enumerable.Range(0, Math.Min(x.Length, y.Length)).Where(i => double.IsFinite(x[i]) && double.IsFinite(y[i])).ToArray();
-        return new Scatter
-        {
-            Name = name,
-            ShowLegend = legend && keep.Length > 0,
-            Mode = ModeFlag.Markers,
-            X = [.. keep.Select(i => (object)x[i])],
-            Y = [.. keep.Select(i => (object)y[i])],
-            XAxis = "x",
-            YAxis = yAxis,
-            Marker = new Marker { Symbol = symbol, Size = size, Color = color, Line = new Plotly.Blazor.Traces.ScatterLib.MarkerLib.Line { Width = 2.5m, Color = color } },
-            HoverTemplate = (hoverName ?? name) + " %{x:.4s}Hz<extra></extra>",
-        };
-    }
-
-    /// <summary>Dashed vertical lines at each frequency across one panel, in one trace (gaps between them).</summary>
-    private static Scatter VerticalLines(double[] hz, (double Min, double Max) range, string yAxis, string color, string name) => new()
-    {
-        Name = name,
-        LegendGroup = name,
-        ShowLegend = false,
-        Mode = ModeFlag.Lines,
-        X = [.. hz.Where(double.IsFinite).SelectMany(f => new object?[] { f, f, null })],
-        Y = [.. hz.Where(double.IsFinite).SelectMany(_ => new object?[] { range.Min, range.Max, null })],
-        XAxis = "x",
-        YAxis = yAxis,
-        Line = new Line { Color = color, Width = 1.6m, Dash = "dash" },
-        HoverInfo = HoverInfoFlag.Skip,
-    };
-
-    private static Shape HorizontalLine(double y, string yRef, string color, string dash) => new()
-    {
-        Type = Plotly.Blazor.LayoutLib.ShapeLib.TypeEnum.Line,
-        XRef = "paper",
-        X0 = 0m,
-        X1 = 1m,
-        YRef = yRef,
-        Y0 = y,
-        Y1 = y,
-        Line = new Plotly.Blazor.LayoutLib.ShapeLib.Line { Color = color, Width = 1.4m, Dash = dash },
-        Layer = Plotly.Blazor.LayoutLib.ShapeLib.LayerEnum.Below,
-    };
-
-    private static Annotation Note(double hz, double y, string yRef, string text, string color, int ax, int ay) => Callout.Beside(
-        new Annotation
-        {
-            XRef = "x",
-            X = Math.Log10(hz), // annotations on a log axis take log10 of the position (plotly.js convention)
-            YRef = yRef,
-            Y = y,
-            Text = text,
-            BgColor = "rgba(255,255,255,0.92)",
-            BorderColor = color,
-            BorderWidth = 1.5m,
-            BorderPad = 4m,
-            Font = new AnnotationFont { Color = ChartPalette.Ink, Size = ChartPalette.FontSize },
-        },
-        right: ax > 0,
-        above: ay < 0);
-
-    private static Layout BaseLayout((double Min, double Max) mag, (double Min, double Max) phase, List<Annotation> annotations, List<Shape> shapes, DesignAnalysis analysis)
+    private static Layout BaseLayout((double Min, double Max) mag, (double Min, double Max) phase, DesignAnalysis analysis)
     {
         var a = analysis.Design.Analysis;
         return new Layout
@@ -400,7 +358,9 @@ public static class BodeFigure
                     Range = [mag.Min, mag.Max],
                     DTick = 20,
                     GridColor = ChartPalette.Grid,
-                    ZeroLine = false,
+                    ZeroLine = true, // the 0 dB line, drawn with the axis (a layout shape costs a redraw more)
+                    ZeroLineColor = ChartPalette.Ink,
+                    ZeroLineWidth = 1.4m,
                     ShowLine = true,
                     LineColor = ChartPalette.Ink,
                     Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True,
@@ -419,8 +379,6 @@ public static class BodeFigure
                     Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True,
                 },
             ],
-            Annotations = annotations,
-            Shapes = shapes,
         };
     }
 

@@ -27,6 +27,9 @@ public static class ChartPalette
     /// <summary>Reference lines and text: near black.</summary>
     public const string Ink = "#1d232a";
 
+    /// <summary>Reference lines (crossover verticals, the -180 degree line, final values): dark grey, dashed.</summary>
+    public const string Reference = "#5b6673";
+
     /// <summary>Grid lines.</summary>
     public const string Grid = "#dde2e8";
 

@@ -24,6 +24,12 @@ public static class StepFigure
     /// <summary>Reference-step trace name.</summary>
     public const string ReferenceName = "reference step";
 
+    /// <summary>Name of the load-step panel's marks trace (final value, settling time, peak).</summary>
+    public const string LoadMarksName = "load-step marks";
+
+    /// <summary>Name of the reference-step panel's marks trace (final value, settling time, peak).</summary>
+    public const string ReferenceMarksName = "reference-step marks";
+
     /// <summary>Most points drawn per response; longer ones are thinned keeping each bucket's extremes.</summary>
     public const int MaxPoints = 400;
 
@@ -83,89 +89,38 @@ public static class StepFigure
         });
         notes.Add(new Annotation { XRef = x + " domain", YRef = y + " domain", X = 0.5m, Y = 1.0m, YAnchor = Plotly.Blazor.LayoutLib.AnnotationLib.YAnchorEnum.Bottom, ShowArrow = false, Text = "<b>" + name + "</b>", Font = new AnnotationFont { Size = 15, Color = ChartPalette.Ink } });
 
+        // The marks of a panel are one trace (ChartMarks): the final value and the settling time as dashed lines, the
+        // peak as a dot, their figures as the trace's text (plotly.js redraws that far faster than extra traces and annotations).
+        var marks = new ChartMarks(isLoad ? LoadMarksName : ReferenceMarksName, x, y, new Line { Color = ChartPalette.Reference, Width = 1.4m, Dash = "dash" });
         var m = r.Metrics;
-        if (double.IsFinite(m.PeakTimeS) && double.IsFinite(m.PeakDeviation))
+        if (m.FinalValue is double final && double.IsFinite(final) && r.TimeS.Length > 1)
         {
-            data.Add(Marker(m.PeakTimeS, m.PeakDeviation, x, y, ChartPalette.Margin, "peak"));
-            string text = isLoad
-                ? $"peak {Signed(m.PeakDeviation, "V")}"
-                : m.OvershootPct is double os ? $"overshoot {os.ToString("F1", CultureInfo.InvariantCulture)} %" : $"peak {Signed(m.PeakDeviation, "V")}";
-            notes.Add(Callout.Beside(
-                new Annotation
-                {
-                    XRef = x,
-                    YRef = y,
-                    X = m.PeakTimeS,
-                    Y = m.PeakDeviation,
-                    Text = text,
-                    BgColor = "rgba(255,255,255,0.92)",
-                    BorderColor = ChartPalette.Margin,
-                    BorderWidth = 1.5m,
-                    BorderPad = 3m,
-                },
-                right: true,
-                above: m.PeakDeviation >= 0));
+            marks.Segment(r.TimeS[0], final, r.TimeS[^1], final, "final value");
         }
 
         if (m.SettlingTimeS is double ts && double.IsFinite(ts) && r.TimeS.Length > 0)
         {
             var (lo, hi) = ChartNumbers.Extent(r.Value, -1, 1);
-            data.Add(new Scatter
-            {
-                Name = "settling",
-                Mode = ModeFlag.Lines,
-                X = [ts, ts],
-                Y = [lo, hi],
-                XAxis = x,
-                YAxis = y,
-                Line = new Line { Color = ChartPalette.GainMargin, Width = 1.6m, Dash = "dash" },
-                HoverInfo = HoverInfoFlag.Skip,
-            });
-            notes.Add(new Annotation
-            {
-                XRef = x,
-                YRef = y + " domain",
-                X = ts,
-                Y = 0.04m,
-                XAnchor = Plotly.Blazor.LayoutLib.AnnotationLib.XAnchorEnum.Left,
-                Text = $"settled (2 %) {EngineeringFormat.Format(ts, "s")}",
-                ShowArrow = false,
-                XShift = 4,
-                Font = new AnnotationFont { Color = ChartPalette.GainMargin, Size = 13 },
-            });
+            marks.Segment(ts, hi, ts, lo, "settling", $"settled (2 %) {EngineeringFormat.Format(ts, "s")}", Plotly.Blazor.Traces.ScatterLib.TextPositionEnum.TopRight);
         }
         else if (m.SettlingTimeS is null)
         {
             notes.Add(Centered(x + " domain", y + " domain", "not settled within the simulated time"));
         }
 
-        if (m.FinalValue is double final && double.IsFinite(final) && r.TimeS.Length > 1)
+        if (double.IsFinite(m.PeakTimeS) && double.IsFinite(m.PeakDeviation))
         {
-            data.Add(new Scatter
-            {
-                Name = "final value",
-                Mode = ModeFlag.Lines,
-                X = [r.TimeS[0], r.TimeS[^1]],
-                Y = [final, final],
-                XAxis = x,
-                YAxis = y,
-                Line = new Line { Color = "#6b7682", Width = 1.2m, Dash = "dot" },
-                HoverInfo = HoverInfoFlag.Skip,
-            });
+            string text = isLoad
+                ? $"peak {Signed(m.PeakDeviation, "V")}"
+                : m.OvershootPct is double os ? $"overshoot {os.ToString("F1", CultureInfo.InvariantCulture)} %" : $"peak {Signed(m.PeakDeviation, "V")}";
+            marks.Point(m.PeakTimeS, m.PeakDeviation, Plotly.Blazor.Traces.ScatterLib.MarkerLib.SymbolEnum.Circle, 10, ChartPalette.Margin, "peak", text, Callout.Position(right: true, above: m.PeakDeviation >= 0));
+        }
+
+        if (marks.Count > 0)
+        {
+            data.Add(marks.ToTrace(hoverTemplate: null));
         }
     }
-
-    private static Scatter Marker(double t, double v, string x, string y, string color, string name) => new()
-    {
-        Name = name,
-        Mode = ModeFlag.Markers,
-        X = [t],
-        Y = [v],
-        XAxis = x,
-        YAxis = y,
-        Marker = new Plotly.Blazor.Traces.ScatterLib.Marker { Size = 10, Color = color },
-        HoverInfo = HoverInfoFlag.Skip,
-    };
 
     private static XAxis Axis(string anchorOf, IList<object> domain) => new()
     {
