@@ -5,14 +5,21 @@ using Microsoft.Playwright;
 
 // Browser benchmark (not a test): 50 input changes in the workspace, each timed from the change in the page to both
 // charts redrawn (Plotly's plotly_afterplot event on the loop-gain and step charts). Prints p50 and p95.
-// Usage: dotnet run --project tests/LoopShaper.Web.Bench [-- --changes 50] [-- --shot out.png]
+// Before the timed changes, --warmup changes (20) are made and not counted: the server's JIT compiles its hot paths to
+// their optimised tier over the first few dozen calls, as it has in a server that has been in use for a while.
+// Usage: dotnet run --project tests/LoopShaper.Web.Bench [-- --changes 50] [-- --warmup 20] [-- --shot out.png]
 int changes = 50;
+int warmup = 20;
 string? shot = null;
 for (int i = 0; i < args.Length - 1; i++)
 {
     if (args[i] == "--changes")
     {
         changes = int.Parse(args[i + 1], CultureInfo.InvariantCulture);
+    }
+    else if (args[i] == "--warmup")
+    {
+        warmup = int.Parse(args[i + 1], CultureInfo.InvariantCulture);
     }
     else if (args[i] == "--shot")
     {
@@ -99,6 +106,12 @@ await page.EvaluateAsync(@"() => {
 string[] inductances = ["270 nH", "330 nH", "390 nH", "470 nH"];
 string[] zeros = ["3.3k", "3.9k", "4.7k", "5.6k"];
 var times = new List<double>();
+for (int i = 0; i < warmup; i++)
+{
+    await Change(i);
+}
+
+await page.EvaluateAsync("() => { window.__inputs = []; window.__react = []; window.__revisions = []; }");
 ICDPSession? profiler = null;
 if (Environment.GetEnvironmentVariable("BENCH_PROFILE") == "1")
 {
@@ -108,29 +121,35 @@ if (Environment.GetEnvironmentVariable("BENCH_PROFILE") == "1")
     await profiler.SendAsync("Profiler.start");
 }
 
+ICDPSession? tracer = null;
+var traceEvents = new List<System.Text.Json.JsonElement>();
+var traceDone = new TaskCompletionSource();
+if (Environment.GetEnvironmentVariable("BENCH_TRACE") == "1")
+{
+    // The browser's timeline (style, layout, paint and script per thread) over all the changes, written to the temp
+    // folder as a Chrome trace (open it in any trace viewer, e.g. chrome://tracing or Perfetto).
+    tracer = await page.Context.NewCDPSessionAsync(page);
+    tracer.Event("Tracing.dataCollected").OnEvent += (_, e) =>
+    {
+        if (e is System.Text.Json.JsonElement d)
+        {
+            lock (traceEvents)
+            {
+                traceEvents.AddRange(d.GetProperty("value").EnumerateArray().Select(v => v.Clone()));
+            }
+        }
+    };
+    tracer.Event("Tracing.tracingComplete").OnEvent += (_, _) => traceDone.TrySetResult();
+    await tracer.SendAsync("Tracing.start", new Dictionary<string, object>
+    {
+        ["categories"] = "devtools.timeline,disabled-by-default-devtools.timeline,v8.execute",
+        ["transferMode"] = "ReportEvents",
+    });
+}
+
 for (int i = 0; i < changes; i++)
 {
-    string id = i % 2 == 0 ? "f-plant-powerStage-inductor-inductanceH" : "f-compensator-zero1Hz";
-    string value = i % 2 == 0 ? inductances[(i / 2) % inductances.Length] : zeros[(i / 2) % zeros.Length];
-    double ms = await page.EvaluateAsync<double>(@"([id, value]) => new Promise((resolve, reject) => {
-      const nb = window.__draws.bode.length, ns = window.__draws.step.length;
-      const input = document.getElementById(id);
-      const t0 = performance.now();
-      (window.__inputs = window.__inputs || []).push(t0);
-      input.value = value;
-      input.dispatchEvent(new Event('input', { bubbles: true }));
-      const started = Date.now();
-      (function wait() {
-        if (window.__draws.bode.length > nb && window.__draws.step.length > ns) {
-          resolve(Math.max(window.__draws.bode[nb], window.__draws.step[ns]) - t0);
-        } else if (Date.now() - started > 10000) {
-          reject(new Error('charts not redrawn within 10 s'));
-        } else {
-          requestAnimationFrame(wait);
-        }
-      })();
-    })", new object[] { id, value });
-    times.Add(ms);
+    times.Add(await Change(warmup + i));
 }
 
 if (profiler is not null && await profiler.SendAsync("Profiler.stop") is System.Text.Json.JsonElement cpu)
@@ -138,6 +157,19 @@ if (profiler is not null && await profiler.SendAsync("Profiler.stop") is System.
     string file = Path.Combine(Path.GetTempPath(), "loopshaper-changes.cpuprofile");
     await File.WriteAllTextAsync(file, cpu.GetProperty("profile").GetRawText());
     Console.WriteLine("browser profile: " + file);
+}
+
+if (tracer is not null)
+{
+    await tracer.SendAsync("Tracing.end");
+    await traceDone.Task.WaitAsync(TimeSpan.FromSeconds(60));
+    string file = Path.Combine(Path.GetTempPath(), "loopshaper-changes.trace.json");
+    lock (traceEvents)
+    {
+        File.WriteAllText(file, System.Text.Json.JsonSerializer.Serialize(new { traceEvents }));
+    }
+
+    Console.WriteLine("browser trace: " + file);
 }
 
 var react = await page.EvaluateAsync<System.Text.Json.JsonElement>("() => window.__react");
@@ -167,7 +199,7 @@ Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"median from inpu
 
 times.Sort();
 double P(double q) => times[(int)Math.Ceiling(q * times.Count) - 1];
-Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"changes: {times.Count} (inductance and compensator zero alternately), from input event to both charts redrawn"));
+Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"changes: {times.Count} after {warmup} not counted (inductance and compensator zero alternately), from input event to both charts redrawn"));
 Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"p50: {P(0.50):F1} ms"));
 Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"p95: {P(0.95):F1} ms"));
 Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"min {times[0]:F1} ms, max {times[^1]:F1} ms"));
@@ -183,3 +215,27 @@ if (consoleErrors.Count > 0)
 }
 
 return 0;
+
+async Task<double> Change(int i)
+{
+    string id = i % 2 == 0 ? "f-plant-powerStage-inductor-inductanceH" : "f-compensator-zero1Hz";
+    string value = i % 2 == 0 ? inductances[(i / 2) % inductances.Length] : zeros[(i / 2) % zeros.Length];
+    return await page.EvaluateAsync<double>(@"([id, value]) => new Promise((resolve, reject) => {
+      const nb = window.__draws.bode.length, ns = window.__draws.step.length;
+      const input = document.getElementById(id);
+      const t0 = performance.now();
+      (window.__inputs = window.__inputs || []).push(t0);
+      input.value = value;
+      input.dispatchEvent(new Event('input', { bubbles: true }));
+      const started = Date.now();
+      (function wait() {
+        if (window.__draws.bode.length > nb && window.__draws.step.length > ns) {
+          resolve(Math.max(window.__draws.bode[nb], window.__draws.step[ns]) - t0);
+        } else if (Date.now() - started > 10000) {
+          reject(new Error('charts not redrawn within 10 s'));
+        } else {
+          requestAnimationFrame(wait);
+        }
+      })();
+    })", new object[] { id, value });
+}

@@ -101,7 +101,7 @@ public sealed class ChartPayloadTests : BunitContext
         var second = DesignAnalyzer.Analyze(form.Build());
         cut.Render(p => p.Add(c => c.Analysis, second));
 
-        cut.WaitForAssertion(() => Assert.Single(module.Invocations["react"]));
+        Eventually.True(() => PlotlyModule.Calls(module).Count(i => i.Identifier == "react") == 1, "the redraw with Plotly.react");
         using var data = Json(module.Invocations["react"].Single().Arguments[1]);
         var loop = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.LoopName);
         double[] x = [.. loop.GetProperty("x").EnumerateArray().Select(v => v.GetDouble())];

@@ -158,7 +158,7 @@ public sealed class ControlSchemeTests : BunitContext
         }
 
         cut.Find("[data-trace-toggle='ideal-amplifier']").Change(false);
-        cut.WaitForAssertion(() => Assert.Single(module.Invocations["react"]));
+        Eventually.True(() => PlotlyModule.Calls(module).Count(i => i.Identifier == "react") == 1, "the redraw with Plotly.react");
         using var after = JsonDocument.Parse(JsonSerializer.Serialize(module.Invocations["react"].Single().Arguments[1]));
         var traces = after.RootElement.EnumerateArray().ToList();
         var sent = traces.Select(t => t.GetProperty("name").GetString()).ToList();

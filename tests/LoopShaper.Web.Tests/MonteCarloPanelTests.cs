@@ -114,7 +114,7 @@ public sealed class MonteCarloPanelTests : BunitContext
         var result = cut.Instance.Run.Result!;
         var sample = result.WorstSamples[0];
         int l = result.Parameters.IndexOf(result.Parameters.Single(p => p.Kind == ToleranceKind.Inductance));
-        cut.Find($"[data-mc-open='{sample.Index}']").Click();
+        cut.WaitForAssertion(() => cut.Find($"[data-mc-open='{sample.Index}']").Click()); // found and clicked in one go: progress renders may replace the row
         Eventually.True(() => workspace.Form.Name.EndsWith("sample " + sample.Index, StringComparison.Ordinal), "the sample opened");
 
         // The opened design carries the sample's parameter values (entered value x factor, the core's ToDesign).

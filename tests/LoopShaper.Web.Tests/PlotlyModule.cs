@@ -7,7 +7,7 @@ public static class PlotlyModule
     public const string ModulePath = "./_content/Plotly.Blazor/plotly-interop-7.2.0.js";
 
     /// <summary>The plotly.js bundle it loads.</summary>
-    public const string ScriptPath = "./_content/Plotly.Blazor/plotly-3.7.0.min.js";
+    public const string ScriptPath = "./_content/Plotly.Blazor/plotly-basic-3.7.0.min.js";
 
     /// <summary>Sets up the module and the calls the workspace's charts make; anything else fails the test.</summary>
     public static BunitJSModuleInterop Setup(BunitJSInterop js)

@@ -3,26 +3,21 @@ using LoopShaper.Core.Design;
 using LoopShaper.Web.Model.Charts;
 using Microsoft.AspNetCore.Components;
 using Microsoft.AspNetCore.Components.Web;
-using Plotly.Blazor;
 using Plotly.Blazor.Interop;
 
 namespace LoopShaper.Web.Components.Controls;
 
 /// <summary>
-/// The loop-gain Bode chart. Redraws with Plotly.react when the analysis changes; compensator markers are selected
-/// by clicking them (or their name) and nudged with the arrow keys.
+/// The loop-gain Bode chart, redrawn (through <see cref="LiveChart"/>) when the analysis changes; compensator markers
+/// are selected by clicking them (or their name) and nudged with the arrow keys.
 /// </summary>
 public sealed partial class BodeChart
 {
-    private PlotlyChart? _chart;
     private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
     private DesignAnalysis? _drawnAnalysis;
     private BodeTraces _drawnShow = new();
     private PlacementTarget? _drawnSelected;
     private MeasuredSet? _drawnMeasured;
-    private ChartFigure? _firstFigure;
-    private bool _drawn;
-    private bool _needsRedraw;
 
     /// <summary>The analysis to show.</summary>
     [Parameter, EditorRequired]
@@ -71,50 +66,6 @@ public sealed partial class BodeChart
             _drawnAnalysis = Analysis;
             _drawnShow = Show;
             _drawnSelected = Selected;
-            _firstFigure ??= _figure;
-            _needsRedraw = true;
-        }
-    }
-
-    /// <inheritdoc />
-    protected override async Task OnAfterRenderAsync(bool firstRender)
-    {
-        // The first draw is the chart's own newPlot; later changes go through Plotly.react.
-        if (_drawn && _needsRedraw && _chart is not null)
-        {
-            _needsRedraw = false;
-            long started = System.Diagnostics.Stopwatch.GetTimestamp();
-            await _chart.React();
-            if (Logger.IsEnabled(LogLevel.Debug))
-            {
-                Logger.LogDebug("Bode chart react sent in {Ms:F1} ms", System.Diagnostics.Stopwatch.GetElapsedTime(started).TotalMilliseconds);
-            }
-        }
-    }
-
-    [Inject]
-    private ILogger<BodeChart> Logger { get; set; } = default!;
-
-    private async void OnFirstDraw()
-    {
-        _drawn = true;
-        if (_chart is null)
-        {
-            return;
-        }
-
-        try
-        {
-            await _chart.SubscribeClickEvent();
-            if (!ReferenceEquals(_figure, _firstFigure))
-            {
-                _needsRedraw = false;
-                await _chart.React();
-            }
-        }
-        catch (Exception ex) when (ex is Microsoft.JSInterop.JSDisconnectedException or Microsoft.JSInterop.JSException or TaskCanceledException)
-        {
-            // The circuit or the chart went away while it was being set up; nothing to draw into.
         }
     }
 
