@@ -180,9 +180,13 @@ public sealed partial class LiveChart : IAsyncDisposable
 
             try
             {
+                // Written here, beside the render, with the property lists kept per type (PlotlyJson): the same JSON
+                // Plotly.Blazor would write, without its reflection on every property of every redraw.
+                var data = figure.Data.Select(PlotlyJson.Prepare).ToList();
+                var layout = PlotlyJson.Prepare(figure.Layout);
 #pragma warning disable BL0005 // The chart's figure is set here, outside a render, so that it can be sent before the render ends.
-                chart.Data = figure.Data;
-                chart.Layout = figure.Layout;
+                chart.Data = data;
+                chart.Layout = layout;
 #pragma warning restore BL0005
                 await chart.React();
             }
