@@ -61,6 +61,25 @@ public sealed class LiveChartTests : BunitContext
     }
 
     [Fact]
+    public async Task A_figure_shown_by_the_parent_is_sent_at_once_and_not_again_when_it_arrives_as_the_parameter()
+    {
+        var module = PlotlyModule.Setup(JSInterop);
+        var cut = Render<LiveChart>(p => p.Add(c => c.Id, "c4").Add(c => c.Figure, Figure("first")).Add(c => c.DeferOffscreen, false));
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
+
+        var second = Figure("second");
+        await cut.InvokeAsync(() => cut.Instance.Show(second));
+        Eventually.True(() => Reacts(module).Count == 1, "the react of the shown figure");
+        Assert.Equal(["second"], TraceNames(Reacts(module)[0]));
+        await cut.Instance.Sending;
+
+        cut.Render(p => p.Add(c => c.Figure, second));
+        await cut.Instance.Sending;
+        Assert.Single(Reacts(module));
+        Assert.False(cut.Instance.IsStale);
+    }
+
+    [Fact]
     public async Task Figures_that_arrive_while_one_is_being_sent_collapse_into_the_newest()
     {
         // Plotly.react that does not return until released: the first redraw is "in the browser" while more arrive.

@@ -14,6 +14,7 @@ namespace LoopShaper.Web.Components.Controls;
 public sealed partial class BodeChart
 {
     private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
+    private LiveChart? _live;
     private DesignAnalysis? _drawnAnalysis;
     private BodeTraces _drawnShow = new();
     private PlacementTarget? _drawnSelected;
@@ -62,6 +63,7 @@ public sealed partial class BodeChart
         if (!ReferenceEquals(Analysis, _drawnAnalysis) || Show != _drawnShow || Selected != _drawnSelected || !ReferenceEquals(Measured, _drawnMeasured))
         {
             _figure = BodeFigure.Build(Analysis, Show, Form.Mode == CompensatorMode.Placement ? Selected : null, MeasuredOverlay.Compare(Analysis, Measured));
+            _live?.Show(_figure);
             _drawnMeasured = Measured;
             _drawnAnalysis = Analysis;
             _drawnShow = Show;

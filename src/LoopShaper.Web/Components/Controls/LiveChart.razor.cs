@@ -19,6 +19,8 @@ public sealed partial class LiveChart : IAsyncDisposable
     private PlotlyChart? _chart;
     private ChartFigure? _firstFigure;
     private ChartFigure? _shown;
+    private ChartFigure? _wanted;
+    private ChartFigure? _lastParameter;
     private IJSObjectReference? _module;
     private DotNetObjectReference<LiveChart>? _self;
     private bool _drawn;
@@ -51,8 +53,8 @@ public sealed partial class LiveChart : IAsyncDisposable
     /// <summary>The figure the browser shows (the first one until the chart has been drawn).</summary>
     public ChartFigure? Shown => _shown;
 
-    /// <summary>True when the browser shows an older figure than <see cref="Figure"/>.</summary>
-    public bool IsStale => !ReferenceEquals(_shown, Figure);
+    /// <summary>True when the browser shows an older figure than the newest one given.</summary>
+    public bool IsStale => !ReferenceEquals(_shown, _wanted ?? Figure);
 
     /// <summary>The send of the newest figure (completes when the browser has it).</summary>
     public Task Sending { get; private set; } = Task.CompletedTask;
@@ -91,10 +93,26 @@ public sealed partial class LiveChart : IAsyncDisposable
         _self?.Dispose();
     }
 
+    /// <summary>
+    /// Sends <paramref name="figure"/> now, from the parent's own parameter step, instead of when this chart's turn in the
+    /// render comes (the parent still passes the same figure as <see cref="Figure"/>).
+    /// </summary>
+    public void Show(ChartFigure figure)
+    {
+        _wanted = figure;
+        RedrawIfStale();
+    }
+
     /// <inheritdoc />
     protected override void OnParametersSet()
     {
         _firstFigure ??= Figure;
+        if (!ReferenceEquals(Figure, _lastParameter))
+        {
+            _lastParameter = Figure;
+            _wanted = Figure;
+        }
+
         RedrawIfStale();
     }
 
@@ -146,10 +164,11 @@ public sealed partial class LiveChart : IAsyncDisposable
             return;
         }
 
-        _shown = Figure;
+        var target = _wanted ?? Figure;
+        _shown = target;
         lock (_gate)
         {
-            _queued = Figure;
+            _queued = target;
             if (_sending)
             {
                 return;

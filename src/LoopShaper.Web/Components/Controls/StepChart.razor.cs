@@ -9,6 +9,7 @@ public sealed partial class StepChart
 {
     private ChartFigure _figure = new([], new Plotly.Blazor.Layout(), []);
     private DesignAnalysis? _builtFrom;
+    private LiveChart? _live;
 
     /// <summary>The analysis to show.</summary>
     [Parameter, EditorRequired]
@@ -23,6 +24,7 @@ public sealed partial class StepChart
         if (!ReferenceEquals(Analysis, _builtFrom))
         {
             _figure = StepFigure.Build(Analysis);
+            _live?.Show(_figure); // sent now, not when the chart's turn in the render comes
             _builtFrom = Analysis;
         }
     }
