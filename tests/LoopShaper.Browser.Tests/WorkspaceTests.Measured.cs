@@ -51,6 +51,8 @@ public sealed partial class WorkspaceTests
     {
         var page = await OpenAsync(_browser, fixture.App.BaseUri.ToString());
         await page.SelectOptionAsync("[data-report-paper]", "Letter");
+        // The paper goes into the link when the server has re-rendered the panel; click the link that has it.
+        await page.WaitForFunctionAsync("() => /paper=letter/i.test(document.querySelector('[data-report-download]')?.getAttribute('href') ?? '')");
         var download = await page.RunAndWaitForDownloadAsync(() => page.ClickAsync("[data-report-download]"));
         string html = await File.ReadAllTextAsync(await download.PathAsync());
         Assert.Contains("<h1>Processor core rail 12 V to 1.0 V</h1>", html, StringComparison.Ordinal);
