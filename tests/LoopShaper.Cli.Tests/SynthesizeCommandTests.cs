@@ -272,6 +272,10 @@ public class SynthesizeCommandTests
         var designators = root.GetProperty("parts").EnumerateArray().Select(p => p.GetProperty("designator").GetString()!).ToArray();
         Assert.Equal(["R2", "C1", "C2"], designators);
         Assert.Equal(expected.MeetsCriteria, root.GetProperty("meetsCriteria").GetBoolean());
+        // The report names the amplifier the network is for, in the JSON and in the text heading.
+        Assert.Equal("ota", root.GetProperty("amplifier").GetString());
+        Assert.Contains("Synthesis: Type II OTA (transconductance) network,", run.Output, StringComparison.Ordinal);
+        Assert.DoesNotContain("op-amp network", run.Output, StringComparison.Ordinal);
     }
 
     [Fact]

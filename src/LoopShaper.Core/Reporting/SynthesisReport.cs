@@ -16,6 +16,12 @@ public sealed record SynthesisReport
     /// <summary>The value of the "format" field of a JSON report.</summary>
     public const string FormatName = "loopshaper-synthesis";
 
+    /// <summary><see cref="Amplifier"/> of an op-amp network.</summary>
+    public const string OpAmp = "opAmp";
+
+    /// <summary><see cref="Amplifier"/> of a transconductance (OTA) network.</summary>
+    public const string Ota = "ota";
+
     /// <summary>Always <see cref="FormatName"/>.</summary>
     public string Format { get; init; } = FormatName;
 
@@ -25,8 +31,11 @@ public sealed record SynthesisReport
     /// <summary>Name of the design.</summary>
     public required string Name { get; init; }
 
-    /// <summary>"typeI", "typeII" or "typeIII": the op-amp network synthesised.</summary>
+    /// <summary>"typeI", "typeII" or "typeIII": the network synthesised.</summary>
     public required string CompensatorType { get; init; }
+
+    /// <summary>The error amplifier the network is for: "opAmp" (voltage-feedback op-amp) or "ota" (transconductance amplifier).</summary>
+    public string Amplifier { get; init; } = OpAmp;
 
     /// <summary>Series of the resistors.</summary>
     public required string ResistorSeries { get; init; }
@@ -88,7 +97,8 @@ public sealed record SynthesisReport
         ArgumentNullException.ThrowIfNull(result);
         var s = result.Synthesis;
         return Of(result.Design, result.Options, s.IdealNetwork.Type, s.Parts, s.ChosenParts, s.Ideal, s.Snapped, s.Search?.Performance, s.Search?.CandidatesTried,
-            s.TargetCrossoverHz, s.TargetPhaseMarginDeg, s.Warnings, s.Derivations, result.BuiltAnalysis);
+            s.TargetCrossoverHz, s.TargetPhaseMarginDeg, s.Warnings, s.Derivations, result.BuiltAnalysis) with
+        { Amplifier = Ota };
     }
 
     private static SynthesisReport Of(

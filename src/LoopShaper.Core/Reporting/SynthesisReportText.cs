@@ -18,7 +18,7 @@ public static class SynthesisReportText
         var t = new StringBuilder();
         bool searched = report.Searched is not null;
         t.Append("Design: ").Append(report.Name).Append('\n');
-        t.Append("Synthesis: ").Append(TypeName(report.CompensatorType)).Append(" op-amp network, resistors ").Append(report.ResistorSeries)
+        t.Append("Synthesis: ").Append(TypeName(report.CompensatorType)).Append(report.Amplifier == SynthesisReport.Ota ? " OTA (transconductance) network, resistors " : " op-amp network, resistors ").Append(report.ResistorSeries)
             .Append(", capacitors ").Append(report.CapacitorSeries).Append(", neighbour search ")
             .Append(report.SearchNeighbours ? string.Create(CultureInfo.InvariantCulture, $"+-{report.SearchSteps} steps") : "off");
         if (report.SearchCandidates is int n)
