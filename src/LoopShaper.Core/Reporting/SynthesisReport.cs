@@ -96,9 +96,9 @@ public sealed record SynthesisReport
     {
         ArgumentNullException.ThrowIfNull(result);
         var s = result.Synthesis;
-        return Of(result.Design, result.Options, s.IdealNetwork.Type, s.Parts, s.ChosenParts, s.Ideal, s.Snapped, s.Search?.Performance, s.Search?.CandidatesTried,
-            s.TargetCrossoverHz, s.TargetPhaseMarginDeg, s.Warnings, s.Derivations, result.BuiltAnalysis) with
-        { Amplifier = Ota };
+        var report = Of(result.Design, result.Options, s.IdealNetwork.Type, s.Parts, s.ChosenParts, s.Ideal, s.Snapped, s.Search?.Performance, s.Search?.CandidatesTried,
+            s.TargetCrossoverHz, s.TargetPhaseMarginDeg, s.Warnings, s.Derivations, result.BuiltAnalysis);
+        return report with { Amplifier = Ota };
     }
 
     private static SynthesisReport Of(
