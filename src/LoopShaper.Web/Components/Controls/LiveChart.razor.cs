@@ -50,17 +50,11 @@ public sealed partial class LiveChart : IAsyncDisposable
     [Parameter]
     public bool DeferOffscreen { get; set; } = true;
 
-    /// <summary>The figure the browser shows (the first one until the chart has been drawn).</summary>
-    public ChartFigure? Shown => _shown;
-
     /// <summary>True when the browser shows an older figure than the newest one given.</summary>
     public bool IsStale => !ReferenceEquals(_shown, _wanted ?? Figure);
 
     /// <summary>The send of the newest figure (completes when the browser has it).</summary>
     public Task Sending { get; private set; } = Task.CompletedTask;
-
-    /// <summary>Whether the chart was last reported on the screen (true until the browser says otherwise).</summary>
-    public bool IsVisible => _visible;
 
     [Inject]
     private IJSRuntime Js { get; set; } = default!;
