@@ -142,7 +142,7 @@ if (Environment.GetEnvironmentVariable("BENCH_TRACE") == "1")
     tracer.Event("Tracing.tracingComplete").OnEvent += (_, _) => traceDone.TrySetResult();
     await tracer.SendAsync("Tracing.start", new Dictionary<string, object>
     {
-        ["categories"] = "devtools.timeline,disabled-by-default-devtools.timeline,v8.execute",
+        ["categories"] = Environment.GetEnvironmentVariable("BENCH_TRACE_CATEGORIES") ?? "devtools.timeline,disabled-by-default-devtools.timeline,v8.execute",
         ["transferMode"] = "ReportEvents",
     });
 }

@@ -166,6 +166,47 @@ public sealed class DesignerPageTests : BunitContext
         cut.WaitForAssertion(() => Assert.Contains(cut.FindAll("[data-warning]"), w => w.TextContent.StartsWith("HAZARDOUS VOLTAGE", StringComparison.Ordinal)));
     }
 
+    [Fact]
+    public void A_change_redraws_the_loop_gain_and_step_charts_in_one_message_with_the_new_analysis()
+    {
+        var cut = RenderReady();
+        Eventually.True(() => cut.Instance.Redraws.MemberCount == 2, "both charts drawn and in the redraw group");
+        int before = ReactAlls().Count;
+        cut.Find(InductanceId).Input("390 nH");
+
+        Eventually.True(() => ReactAlls().Count == before + 1, "one reactAll for the change");
+        Assert.Equal(390e-9, cut.Instance.Workspace.Analysis!.Design.Plant is LoopShaper.Core.PlantModels.BuckPlant b ? b.PowerStage.Inductor.InductanceH : 0, 12);
+        using var doc = System.Text.Json.JsonDocument.Parse(System.Text.Json.JsonSerializer.Serialize(ReactAlls()[^1].Arguments[0]));
+        var sent = doc.RootElement.EnumerateArray().ToDictionary(r => r.GetProperty("Id").GetString()!, r => r.GetProperty("Data"));
+        Assert.Equal(["bode-chart", "step-chart"], sent.Keys.Order());
+
+        // The loop-gain chart's loop trace is the new analysis's loop response (BodeFigure keeps the core's points on its curve).
+        var loop = sent["bode-chart"].EnumerateArray().Single(t => t.GetProperty("name").GetString() == LoopShaper.Web.Model.Charts.BodeFigure.LoopName);
+        var response = cut.Instance.Workspace.Analysis!.LoopResponse!;
+        double f0 = loop.GetProperty("x")[0].GetDouble(), m0 = loop.GetProperty("y")[0].GetDouble();
+        int i0 = response.FrequencyHz.IndexOf(response.FrequencyHz.MinBy(f => Math.Abs(f - f0)));
+        Assert.Equal(response.MagnitudeDb[i0], m0, 1e-2);
+        Assert.DoesNotContain(Calls(), i => i.Identifier == "react" && i.Arguments[0] is "bode-chart" or "step-chart");
+    }
+
+    private List<Bunit.JSRuntimeInvocation> ReactAlls() => [.. Calls().Where(i => i.Identifier == "reactAll")];
+
+    /// <summary>The JS calls so far, copied (see <see cref="PlotlyModule.Calls"/>: the renderer's thread may add one meanwhile).</summary>
+    private List<Bunit.JSRuntimeInvocation> Calls()
+    {
+        while (true)
+        {
+            try
+            {
+                return [.. JSInterop.Invocations];
+            }
+            catch (InvalidOperationException)
+            {
+                Thread.Yield();
+            }
+        }
+    }
+
     private static string Pm(IRenderedComponent<Designer> cut) => cut.Find("[data-kpi-value='phase-margin']").TextContent;
 
     [Fact]
@@ -190,7 +231,8 @@ public sealed class DesignerPageTests : BunitContext
 
         int revision = cut.Instance.Workspace.Revision;
         cut.Find("[data-use-placement]").Click();
-        cut.WaitForAssertion(() => Assert.True(cut.Instance.Workspace.Revision > revision && cut.FindAll("[data-target='Zero1']").Count == 1));
+        // The loop-gain chart's handles too: the editor shows its controls on its own render, the chart with the page's.
+        cut.WaitForAssertion(() => Assert.True(cut.Instance.Workspace.Revision > revision && cut.FindAll("[data-target='Zero1']").Count == 1 && cut.FindAll("[data-handle='Zero1']").Count == 1));
     }
 
     private IRenderedComponent<Designer> RenderReady()

@@ -32,6 +32,16 @@ public sealed class PlotlyJsonTests
     }
 
     [Fact]
+    public void The_chart_configuration_sent_with_a_group_redraw_is_what_plotly_blazor_would_send()
+    {
+        // ChartRedrawGroup sends the configuration with every redraw, as PlotlyChart.React does: the same JSON, or
+        // plotly.js would see a changed configuration and replot the chart from scratch.
+        var config = Web.Model.Charts.ChartConfig.Interactive;
+        Assert.Equal(Sent(config), Sent(new PreparedConfig(PlotlyJson.Serialize(config))));
+        Assert.Contains("\"displaylogo\":false", PlotlyJson.Serialize(config), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Array_values_are_written_only_when_the_single_value_is_unset_and_subplot_lists_are_numbered()
     {
         // Plotly.Blazor's own rules (its PlotlyConverter): SizeArray only without Size; YAxis[1] becomes "yaxis2".

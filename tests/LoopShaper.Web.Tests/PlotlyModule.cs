@@ -21,6 +21,8 @@ public static class PlotlyModule
         var visibility = js.SetupModule(LoopShaper.Web.Components.Controls.LiveChart.VisibilityModule);
         visibility.SetupVoid("watch", _ => true).SetVoidResult();
         visibility.SetupVoid("unwatch", _ => true).SetVoidResult();
+        var redraws = js.SetupModule(LoopShaper.Web.Components.Controls.ChartRedrawGroup.ModulePath);
+        redraws.SetupVoid("reactAll", _ => true).SetVoidResult();
         return module;
     }
 

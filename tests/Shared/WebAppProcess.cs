@@ -160,6 +160,12 @@ public sealed class WebAppProcess : IAsyncDisposable
 
     private static string FindWebDll()
     {
+        // A published build to run instead (the browser benchmark compares two builds this way).
+        if (Environment.GetEnvironmentVariable("LOOPSHAPER_WEB_DLL") is { Length: > 0 } given)
+        {
+            return Path.GetFullPath(given);
+        }
+
         // tests/<project>/bin/<Configuration>/<tfm>/ -> src/LoopShaper.Web/bin/<Configuration>/<tfm>/LoopShaper.Web.dll
         var here = new DirectoryInfo(AppContext.BaseDirectory);
         string tfm = here.Name;

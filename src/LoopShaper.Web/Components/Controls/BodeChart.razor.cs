@@ -63,7 +63,8 @@ public sealed partial class BodeChart
         if (!ReferenceEquals(Analysis, _drawnAnalysis) || Show != _drawnShow || Selected != _drawnSelected || !ReferenceEquals(Measured, _drawnMeasured))
         {
             _figure = BodeFigure.Build(Analysis, Show, Form.Mode == CompensatorMode.Placement ? Selected : null, MeasuredOverlay.Compare(Analysis, Measured));
-            _live?.Show(_figure);
+            // A new analysis goes with the step chart's redraw of it (one browser task); a trace or marker change alone at once.
+            _live?.Show(_figure, ReferenceEquals(Analysis, _drawnAnalysis) ? null : Analysis);
             _drawnMeasured = Measured;
             _drawnAnalysis = Analysis;
             _drawnShow = Show;

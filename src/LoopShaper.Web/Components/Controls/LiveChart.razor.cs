@@ -9,6 +9,8 @@ namespace LoopShaper.Web.Components.Controls;
 /// A Plotly chart that follows its figure: drawn by the chart's own newPlot first, then redrawn with Plotly.react
 /// whenever a new figure arrives. With <see cref="DeferOffscreen"/>, a chart out of sight is not redrawn (nor its figure
 /// sent) until it scrolls into view: the workspace's secondary cards then cost nothing while the engineer tunes the loop.
+/// With <see cref="JoinRedrawGroup"/>, the chart is redrawn together with the other charts of the page's
+/// <see cref="ChartRedrawGroup"/> (one message, one browser task, one paint).
 /// </summary>
 public sealed partial class LiveChart : IAsyncDisposable
 {
@@ -21,6 +23,9 @@ public sealed partial class LiveChart : IAsyncDisposable
     private ChartFigure? _shown;
     private ChartFigure? _wanted;
     private ChartFigure? _lastParameter;
+    private object? _wantedRound;
+    private PreparedConfig? _preparedConfig;
+    private Task _ownSending = Task.CompletedTask;
     private IJSObjectReference? _module;
     private DotNetObjectReference<LiveChart>? _self;
     private bool _drawn;
@@ -50,11 +55,21 @@ public sealed partial class LiveChart : IAsyncDisposable
     [Parameter]
     public bool DeferOffscreen { get; set; } = true;
 
+    /// <summary>Redraw with the page's <see cref="ChartRedrawGroup"/> (when there is one); for charts always in view (no <see cref="DeferOffscreen"/>).</summary>
+    [Parameter]
+    public bool JoinRedrawGroup { get; set; }
+
+    /// <summary>The page's redraw group, if any.</summary>
+    [CascadingParameter]
+    public ChartRedrawGroup? RedrawGroup { get; set; }
+
     /// <summary>True when the browser shows an older figure than the newest one given.</summary>
     public bool IsStale => !ReferenceEquals(_shown, _wanted ?? Figure);
 
-    /// <summary>The send of the newest figure (completes when the browser has it).</summary>
-    public Task Sending { get; private set; } = Task.CompletedTask;
+    /// <summary>The send of the newest figure (completes when the browser has it); the group's latest send for a grouped chart.</summary>
+    public Task Sending => Group?.Sending ?? _ownSending;
+
+    private ChartRedrawGroup? Group => JoinRedrawGroup && !DeferOffscreen ? RedrawGroup : null;
 
     [Inject]
     private IJSRuntime Js { get; set; } = default!;
@@ -71,6 +86,7 @@ public sealed partial class LiveChart : IAsyncDisposable
     public async ValueTask DisposeAsync()
     {
         _disposed = true;
+        Group?.Leave(this);
         if (_module is not null)
         {
             try
@@ -89,12 +105,25 @@ public sealed partial class LiveChart : IAsyncDisposable
 
     /// <summary>
     /// Sends <paramref name="figure"/> now, from the parent's own parameter step, instead of when this chart's turn in the
-    /// render comes (the parent still passes the same figure as <see cref="Figure"/>).
+    /// render comes (the parent still passes the same figure as <see cref="Figure"/>). A grouped chart's redraw waits
+    /// for the other members' redraws of the same <paramref name="round"/> (the analysis shown); null sends it at once.
     /// </summary>
-    public void Show(ChartFigure figure)
+    public void Show(ChartFigure figure, object? round = null)
     {
         _wanted = figure;
+        _wantedRound = round;
         RedrawIfStale();
+    }
+
+    /// <summary>Takes the group's prepared figure as the chart's own (for Plotly.Blazor) and gives the browser's redraw of it.</summary>
+    internal ChartRedrawGroup.Redraw Redrawn(List<ITrace> data, Plotly.Blazor.Layout layout)
+    {
+#pragma warning disable BL0005 // The chart's figure is set here, outside a render, so that it can be sent before the render ends.
+        _chart!.Data = data;
+        _chart.Layout = layout;
+#pragma warning restore BL0005
+        _preparedConfig ??= new PreparedConfig(PlotlyJson.Serialize(_config));
+        return new ChartRedrawGroup.Redraw(Id, [.. data], layout, _preparedConfig);
     }
 
     /// <inheritdoc />
@@ -105,6 +134,7 @@ public sealed partial class LiveChart : IAsyncDisposable
         {
             _lastParameter = Figure;
             _wanted = Figure;
+            _wantedRound = null;
         }
 
         RedrawIfStale();
@@ -132,6 +162,8 @@ public sealed partial class LiveChart : IAsyncDisposable
     {
         _drawn = true;
         _shown = _firstFigure;
+        _wantedRound = null; // a figure that came before the first draw goes now, without waiting for a round
+        Group?.Join(this);
         RedrawIfStale();
         if (ClickAction is not null && _chart is not null)
         {
@@ -160,6 +192,12 @@ public sealed partial class LiveChart : IAsyncDisposable
 
         var target = _wanted ?? Figure;
         _shown = target;
+        if (Group is ChartRedrawGroup group)
+        {
+            group.Submit(this, target, _wantedRound);
+            return;
+        }
+
         lock (_gate)
         {
             _queued = target;
@@ -171,7 +209,7 @@ public sealed partial class LiveChart : IAsyncDisposable
             _sending = true;
         }
 
-        Sending = Task.Run(SendQueued);
+        _ownSending = Task.Run(SendQueued);
     }
 
     private async Task SendQueued()

@@ -24,7 +24,7 @@ public sealed partial class StepChart
         if (!ReferenceEquals(Analysis, _builtFrom))
         {
             _figure = StepFigure.Build(Analysis);
-            _live?.Show(_figure); // sent now, not when the chart's turn in the render comes
+            _live?.Show(_figure, Analysis); // sent now (with the loop-gain chart's redraw of the same analysis), not when its turn in the render comes
             _builtFrom = Analysis;
         }
     }

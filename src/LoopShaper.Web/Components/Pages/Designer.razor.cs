@@ -1,7 +1,9 @@
 using LoopShaper.Core.Design;
 using LoopShaper.Core.PlantModels;
 using LoopShaper.Core.Validation;
+using LoopShaper.Web.Components.Controls;
 using Microsoft.AspNetCore.Components;
+using Microsoft.JSInterop;
 
 namespace LoopShaper.Web.Components.Pages;
 
@@ -9,7 +11,7 @@ namespace LoopShaper.Web.Components.Pages;
 /// The workspace: inputs on the left, the summary, the loop-gain chart, the step responses and the derivations on
 /// the right. Every change recomputes through the core; this page only moves text between the form and the panels.
 /// </summary>
-public sealed partial class Designer : IDisposable, IHandleEvent
+public sealed partial class Designer : IAsyncDisposable, IHandleEvent
 {
     /// <summary>Name of the top-bar section the file actions render into.</summary>
     public const string TopBarSection = "topbar-actions";
@@ -18,6 +20,7 @@ public sealed partial class Designer : IDisposable, IHandleEvent
     private int _renders;
     private string? _linkError;
     private MeasuredSet? _measured;
+    private ChartRedrawGroup _redraws = default!;
 
     /// <summary>A design packed by <see cref="ShareToken"/>, from a share link.</summary>
     [SupplyParameterFromQuery(Name = ShareToken.QueryName)]
@@ -29,6 +32,9 @@ public sealed partial class Designer : IDisposable, IHandleEvent
     /// <summary>The corner sweep of the open design (created with the workspace).</summary>
     public CornerWatch Corners { get; private set; } = default!;
 
+    /// <summary>The loop-gain and step charts' redraws (created on initialisation).</summary>
+    internal ChartRedrawGroup Redraws => _redraws;
+
     /// <summary>The parts of the open design (created with the workspace).</summary>
     public PartsWorkspace Parts { get; private set; } = default!;
 
@@ -37,6 +43,9 @@ public sealed partial class Designer : IDisposable, IHandleEvent
 
     [Inject]
     private ILogger<Designer> Logger { get; set; } = default!;
+
+    [Inject]
+    private IJSRuntime Js { get; set; } = default!;
 
     private DesignForm Form => Workspace.Form;
 
@@ -59,13 +68,14 @@ public sealed partial class Designer : IDisposable, IHandleEvent
         => [.. Issues.Except(Form.ActiveFields.Select(f => f.Path).Concat(GroupPaths))];
 
     /// <inheritdoc />
-    public void Dispose()
+    public ValueTask DisposeAsync()
     {
         Workspace.Changed -= OnWorkspaceChanged;
         Parts.Changed -= OnWorkspaceChanged;
         Parts.Dispose();
         Corners.Changed -= OnCornersChanged;
         Corners.Dispose();
+        return _redraws.DisposeAsync();
     }
 
     /// <summary>
@@ -93,6 +103,7 @@ public sealed partial class Designer : IDisposable, IHandleEvent
     /// <inheritdoc />
     protected override async Task OnInitializedAsync()
     {
+        _redraws = new ChartRedrawGroup(Js);
         var design = Demo.Design;
         if (DesignToken is not null)
         {
@@ -131,6 +142,9 @@ public sealed partial class Designer : IDisposable, IHandleEvent
     /// <inheritdoc />
     protected override void OnAfterRender(bool firstRender)
     {
+        // The charts of a new analysis went together during the render; anything still waiting (a chart whose panel
+        // failed to draw its figure) goes now.
+        _redraws.Flush();
         if (firstRender && RendererInfo.IsInteractive)
         {
             _interactive = true;
