@@ -38,6 +38,22 @@ page.Console += (_, m) =>
         consoleErrors.Add(m.Text);
     }
 };
+if (Environment.GetEnvironmentVariable("BENCH_WS") == "1")
+{
+    // Every WebSocket message in and out, with its size and time, for the last changes' message list printed below.
+    await page.AddInitScriptAsync(@"(() => {
+  window.__ws = [];
+  const add = WebSocket.prototype.addEventListener;
+  const origSend = WebSocket.prototype.send;
+  WebSocket.prototype.send = function (d) { window.__ws.push({ t: performance.now(), dir: 'out', n: d.byteLength ?? d.length }); return origSend.call(this, d); };
+  Object.defineProperty(WebSocket.prototype, 'onmessage', { configurable: true, set(f) { this.addEventListener('message', f); }, get() { return null; } });
+  WebSocket.prototype.addEventListener = function (type, f, o) {
+    if (type === 'message') { const g = f; f = function (e) { window.__ws.push({ t: performance.now(), dir: 'in', n: e.data.byteLength ?? e.data.length }); return g.call(this, e); }; }
+    return add.call(this, type, f, o);
+  };
+})()");
+}
+
 await page.GotoAsync(app.BaseUri.ToString());
 await page.WaitForSelectorAsync("[data-circuit=ready]");
 await page.WaitForSelectorAsync("#bode-chart .main-svg");
@@ -196,6 +212,21 @@ var split = await page.EvaluateAsync<double[]>(@"() => {
   return [med(toBode), med(gap), med(toDom)];
 }");
 Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"median from input event to the page's new revision in the DOM: {split[2]:F1} ms; to the loop-gain chart's react: {split[0]:F1} ms; from its end to the step chart's react: {split[1]:F1} ms"));
+
+if (Environment.GetEnvironmentVariable("BENCH_WS") == "1")
+{
+    // Per change: milliseconds after the input event, direction (> out, < in) and bytes of each message.
+    var ws = await page.EvaluateAsync<string>(@"() => {
+      const out = [];
+      const ins = window.__inputs;
+      for (let i = ins.length - 6; i < ins.length; i++) {
+        const t0 = ins[i], t1 = i + 1 < ins.length ? ins[i + 1] : t0 + 1000;
+        out.push('change ' + i + ' at ' + (performance.timeOrigin + t0).toFixed(1) + ': ' + window.__ws.filter(m => m.t >= t0 && m.t < t1).map(m => `${(m.t - t0).toFixed(0)}${m.dir === 'in' ? '<' : '>'}${m.n}`).join(' '));
+      }
+      return out.join(' || ');
+    }");
+    Console.WriteLine(ws);
+}
 
 times.Sort();
 double P(double q) => times[(int)Math.Ceiling(q * times.Count) - 1];

@@ -3,8 +3,21 @@ using Microsoft.AspNetCore.Components;
 namespace LoopShaper.Web.Components.Controls;
 
 /// <summary>One compensator pole, zero or gain setting: a slider (logarithmic for frequencies) and the typed value.</summary>
-public partial class PlacementControl
+public partial class PlacementControl : IHandleEvent
 {
+    /// <summary>
+    /// An edit renders this control with the page (the handler of <see cref="OnChanged"/> renders the page, and the
+    /// page this control), not first on its own: that render batch would reach the browser ahead of the new charts.
+    /// </summary>
+    async Task IHandleEvent.HandleEventAsync(EventCallbackWorkItem callback, object? arg)
+    {
+        await callback.InvokeAsync(arg);
+        if (!OnChanged.HasDelegate)
+        {
+            StateHasChanged();
+        }
+    }
+
     /// <summary>The form.</summary>
     [Parameter, EditorRequired]
     public DesignForm Form { get; set; } = default!;
