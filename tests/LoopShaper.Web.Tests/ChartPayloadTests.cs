@@ -16,14 +16,14 @@ public sealed class ChartPayloadTests : BunitContext
     [Fact]
     public void Bode_chart_imports_the_plotly_module_once_and_draws_the_core_response()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var form = DesignForm.FromDesign(analysis.Design);
 
         var cut = Render<BodeChart>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Form, form));
 
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
-        Assert.Single(JSInterop.Invocations, i => i.Identifier == "import");
+        Assert.Single(PlotlyModule.Calls(JSInterop), i => i.Identifier == "import");
         Assert.Single(module.Invocations["importScript"]);
 
         var call = module.Invocations["newPlot"].Single();
@@ -72,7 +72,7 @@ public sealed class ChartPayloadTests : BunitContext
     [Fact]
     public void Bode_chart_marks_the_compensator_poles_and_zeros_where_the_core_placed_them()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<BodeChart>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Form, DesignForm.FromDesign(analysis.Design)));
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
@@ -91,7 +91,7 @@ public sealed class ChartPayloadTests : BunitContext
     [Fact]
     public void A_new_analysis_is_drawn_with_react_and_carries_the_new_numbers()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var first = TestDesigns.DemoAnalysis;
         var form = DesignForm.FromDesign(first.Design);
         var cut = Render<BodeChart>(p => p.Add(c => c.Analysis, first).Add(c => c.Form, form));
@@ -113,7 +113,7 @@ public sealed class ChartPayloadTests : BunitContext
     [Fact]
     public void Step_chart_sends_both_responses_with_peak_and_settling_annotated()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<StepChart>(p => p.Add(c => c.Analysis, analysis));
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
@@ -170,7 +170,7 @@ public sealed class ChartPayloadTests : BunitContext
     [Fact]
     public async Task Disposing_the_chart_releases_its_javascript_side()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var cut = Render<StepChart>(p => p.Add(c => c.Analysis, TestDesigns.DemoAnalysis));
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
         await DisposeComponentsAsync();

@@ -19,8 +19,8 @@ public sealed class ChartRedrawGroupTests : BunitContext
     public ChartRedrawGroupTests()
     {
         JSInterop.Mode = JSRuntimeMode.Strict;
-        _plotly = PlotlyModule.Setup(JSInterop);
-        _group = new ChartRedrawGroup(JSInterop.JSRuntime);
+        _plotly = PlotlyModule.Setup(this);
+        _group = new ChartRedrawGroup(new SerializedJsRuntime(JSInterop.JSRuntime), Microsoft.Extensions.Logging.Abstractions.NullLogger.Instance);
     }
 
     [Fact]
@@ -97,20 +97,7 @@ public sealed class ChartRedrawGroupTests : BunitContext
         return (charts[0], charts[1]);
     }
 
-    private List<JSRuntimeInvocation> ReactAlls()
-    {
-        while (true)
-        {
-            try
-            {
-                return [.. JSInterop.Invocations.Where(i => i.Identifier == "reactAll")];
-            }
-            catch (InvalidOperationException)
-            {
-                Thread.Yield();
-            }
-        }
-    }
+    private List<JSRuntimeInvocation> ReactAlls() => [.. PlotlyModule.Calls(JSInterop).Where(i => i.Identifier == "reactAll")];
 
     private static ChartFigure Figure(string name)
         => new([new Scatter { Name = name, X = [1.0, 2.0, 3.0], Y = [0.5, 1.5, 1.0] }], new Layout(), []);

@@ -17,7 +17,7 @@ public sealed class ClosedLoopPanelTests : BunitContext
     [Fact]
     public void Closed_loop_output_impedance_is_the_open_one_divided_by_one_plus_t()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
         var call = Drawn(cut, module, "closed-loop-chart");
@@ -61,7 +61,7 @@ public sealed class ClosedLoopPanelTests : BunitContext
     [Fact]
     public void Closed_loop_audio_susceptibility_is_the_open_one_divided_by_one_plus_t()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
         using var data = Json(Drawn(cut, module, "closed-loop-chart").Arguments[1]);
@@ -82,7 +82,7 @@ public sealed class ClosedLoopPanelTests : BunitContext
     {
         // Two new analyses in quick succession (as while typing or dragging): the panel waits SettleMs after the last
         // one, so it leaves the cores to the main charts and then analyses the latest design only.
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis).Add(c => c.SettleMs, 1500));
         Drawn(cut, module, "closed-loop-chart");
@@ -105,7 +105,7 @@ public sealed class ClosedLoopPanelTests : BunitContext
     [Fact]
     public void Choosing_a_corner_redraws_with_that_corners_loop()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
         Drawn(cut, module, "closed-loop-chart");
@@ -135,7 +135,7 @@ public sealed class ClosedLoopPanelTests : BunitContext
     [Fact]
     public void The_transients_carry_the_cores_peak_and_recovery()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<ClosedLoopPanel>(p => p.Add(c => c.Analysis, analysis));
         var call = Drawn(cut, module, "transient-chart");

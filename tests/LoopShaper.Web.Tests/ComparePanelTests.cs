@@ -12,7 +12,7 @@ public sealed class ComparePanelTests : BunitContext
     public ComparePanelTests()
     {
         JSInterop.Mode = JSRuntimeMode.Strict;
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         TestLibrary.AddTo(Services);
         Services.AddLogging();
     }
@@ -47,7 +47,7 @@ public sealed class ComparePanelTests : BunitContext
         var shown = cut.Instance.Current!;
         Assert.NotEqual(shown.AnalysisA.Margins!.PhaseMarginDeg, shown.AnalysisB.Margins!.PhaseMarginDeg);
         Assert.Equal(4, chart.StepFigure.Data.Count);
-        cut.WaitForAssertion(() => Assert.Equal(2, JSInterop.Invocations.Count(i => i.Identifier == "newPlot")));
+        cut.WaitForAssertion(() => Assert.Equal(2, PlotlyModule.Calls(JSInterop).Count(i => i.Identifier == "newPlot")));
     }
 
     [Fact]

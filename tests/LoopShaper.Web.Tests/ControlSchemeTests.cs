@@ -134,7 +134,7 @@ public sealed class ControlSchemeTests : BunitContext
     [Fact]
     public void A_finite_gain_bandwidth_op_amp_adds_the_ideal_amplifier_traces_to_the_chart_and_they_toggle()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var form = DesignForm.FromDesign(TestDesigns.Demo);
         form.Mode = CompensatorMode.Parts;
         form.RealOpAmp = true;
@@ -170,7 +170,7 @@ public sealed class ControlSchemeTests : BunitContext
     [Fact]
     public void An_ideal_amplifier_design_has_no_ideal_amplifier_traces()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var cut = Render<BodeChart>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Form, DesignForm.FromDesign(analysis.Design)));
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));

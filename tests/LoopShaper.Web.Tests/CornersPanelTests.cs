@@ -21,7 +21,7 @@ public sealed class CornersPanelTests : BunitContext
     [Fact]
     public void The_sweep_lists_every_corner_and_outlines_the_smallest_phase_margin()
     {
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         using var watch = Watch();
         var cut = Render<CornersPanel>(p => p.Add(c => c.Watch, watch));
@@ -55,7 +55,7 @@ public sealed class CornersPanelTests : BunitContext
     [Fact]
     public void The_overlay_draws_every_corner_and_the_worst_on_top()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         using var watch = Watch();
         var cut = Render<CornersPanel>(p => p.Add(c => c.Watch, watch));
@@ -105,7 +105,7 @@ public sealed class CornersPanelTests : BunitContext
     [Fact]
     public async Task The_summary_judges_the_same_corner_table_as_the_corners_card()
     {
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         using var watch = Watch();
         var cut = Render<SummaryPanel>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Corners, watch));

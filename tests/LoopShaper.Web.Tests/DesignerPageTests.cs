@@ -13,7 +13,7 @@ public sealed class DesignerPageTests : BunitContext
     public DesignerPageTests()
     {
         JSInterop.Mode = JSRuntimeMode.Strict;
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         JSInterop.SetupVoid("Blazor._internal.InputFile.init", _ => true);
         Services.AddSingleton<DemoDesign>();
         TestLibrary.AddTo(Services);
@@ -191,21 +191,7 @@ public sealed class DesignerPageTests : BunitContext
 
     private List<Bunit.JSRuntimeInvocation> ReactAlls() => [.. Calls().Where(i => i.Identifier == "reactAll")];
 
-    /// <summary>The JS calls so far, copied (see <see cref="PlotlyModule.Calls"/>: the renderer's thread may add one meanwhile).</summary>
-    private List<Bunit.JSRuntimeInvocation> Calls()
-    {
-        while (true)
-        {
-            try
-            {
-                return [.. JSInterop.Invocations];
-            }
-            catch (InvalidOperationException)
-            {
-                Thread.Yield();
-            }
-        }
-    }
+    private List<Bunit.JSRuntimeInvocation> Calls() => PlotlyModule.Calls(JSInterop);
 
     private static string Pm(IRenderedComponent<Designer> cut) => cut.Find("[data-kpi-value='phase-margin']").TextContent;
 

@@ -1,6 +1,8 @@
 using System.Text.Json;
 using LoopShaper.Web.Components.Controls;
 using LoopShaper.Web.Model.Charts;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
 using Plotly.Blazor;
 using Plotly.Blazor.Traces;
 
@@ -20,10 +22,10 @@ public sealed class LiveChartTests : BunitContext
     [Fact]
     public async Task A_chart_out_of_sight_is_redrawn_when_it_comes_into_view_with_the_newest_figure_only()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var cut = Render<LiveChart>(p => p.Add(c => c.Id, "c1").Add(c => c.Figure, Figure("first")));
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
-        var watch = JSInterop.Invocations.Single(i => i.Identifier == "watch");
+        var watch = PlotlyModule.Calls(JSInterop).Single(i => i.Identifier == "watch");
         Assert.Equal("c1", watch.Arguments[0]);
 
         await cut.InvokeAsync(() => cut.Instance.OnVisibility(false));
@@ -41,7 +43,7 @@ public sealed class LiveChartTests : BunitContext
     [Fact]
     public async Task A_chart_on_screen_is_redrawn_on_every_new_figure()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var cut = Render<LiveChart>(p => p.Add(c => c.Id, "c2").Add(c => c.Figure, Figure("first")));
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
         Assert.Equal(["first"], TraceNames(module.Invocations["newPlot"].Single()));
@@ -63,7 +65,7 @@ public sealed class LiveChartTests : BunitContext
     [Fact]
     public async Task A_figure_shown_by_the_parent_is_sent_at_once_and_not_again_when_it_arrives_as_the_parameter()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var cut = Render<LiveChart>(p => p.Add(c => c.Id, "c4").Add(c => c.Figure, Figure("first")).Add(c => c.DeferOffscreen, false));
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
 
@@ -83,6 +85,7 @@ public sealed class LiveChartTests : BunitContext
     public async Task Figures_that_arrive_while_one_is_being_sent_collapse_into_the_newest()
     {
         // Plotly.react that does not return until released: the first redraw is "in the browser" while more arrive.
+        PlotlyModule.Serialize(this);
         var module = JSInterop.SetupModule(PlotlyModule.ModulePath);
         module.SetupVoid("importScript", "plotly-import", PlotlyModule.ScriptPath).SetVoidResult();
         module.SetupVoid("newPlot", _ => true).SetVoidResult();
@@ -103,7 +106,28 @@ public sealed class LiveChartTests : BunitContext
         Assert.Equal(["fourth"], TraceNames(Reacts(module)[1]));
 
         // Always drawn: no visibility module was asked for.
-        Assert.DoesNotContain(JSInterop.Invocations, i => i.Identifier == "import" && Equals(i.Arguments[0], LiveChart.VisibilityModule));
+        Assert.DoesNotContain(PlotlyModule.Calls(JSInterop), i => i.Identifier == "import" && Equals(i.Arguments[0], LiveChart.VisibilityModule));
+    }
+
+    [Fact]
+    public void A_redraw_that_fails_is_logged_and_the_next_figure_still_goes_out()
+    {
+        // A send that throws something other than a disconnect (here from the JS runtime) once left the chart marked as
+        // sending for good: no redraw ever went out again.
+        var log = new RecordingLoggerProvider();
+        Services.AddLogging(b => b.AddProvider(log));
+        var module = PlotlyModule.Setup(this);
+        module.SetupVoid("react", _ => true).SetException(new InvalidOperationException("broken react"));
+        var cut = Render<LiveChart>(p => p.Add(c => c.Id, "c5").Add(c => c.Figure, Figure("first")).Add(c => c.DeferOffscreen, false));
+        cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
+
+        cut.Render(p => p.Add(c => c.Figure, Figure("second")));
+        Eventually.True(() => { lock (log.Entries) { return log.Entries.Any(e => e.Level == LogLevel.Error && e.Message.Contains("c5", StringComparison.Ordinal)); } }, "the failure logged");
+
+        module.SetupVoid("react", _ => true).SetVoidResult();
+        cut.Render(p => p.Add(c => c.Figure, Figure("third")));
+        Eventually.True(() => Reacts(module).Count == 2, "the next redraw");
+        Assert.Equal(["third"], TraceNames(Reacts(module)[1]));
     }
 
     private static List<JSRuntimeInvocation> Reacts(BunitJSModuleInterop module)

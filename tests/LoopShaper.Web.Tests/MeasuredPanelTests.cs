@@ -55,7 +55,7 @@ public sealed class MeasuredPanelTests : BunitContext
     [Fact]
     public void Measured_margins_stand_beside_the_model_and_the_difference_chart_shows_the_added_offsets()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var set = new MeasuredSet(MeasuredCsvReader.Read(MeasuredCsv).Response!, MeasuredQuantity.LoopGain, "core-rail-loop-gain.csv");
         var cut = Render<MeasuredPanel>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Measured, set));
@@ -83,7 +83,7 @@ public sealed class MeasuredPanelTests : BunitContext
     {
         MeasuredSet? got = null;
         var set = new MeasuredSet(MeasuredCsvReader.Read(MeasuredCsv).Response!, MeasuredQuantity.LoopGain, "m.csv");
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         var cut = Render<MeasuredPanel>(p => p.Add(c => c.Analysis, TestDesigns.DemoAnalysis).Add(c => c.Measured, set).Add(c => c.MeasuredChanged, (MeasuredSet? m) => got = m));
         cut.Find("[data-measured-quantity]").Change(MeasuredQuantity.Plant.ToString());
         Assert.Equal(MeasuredQuantity.Plant, got!.Quantity);
@@ -93,7 +93,7 @@ public sealed class MeasuredPanelTests : BunitContext
     [Fact]
     public void Loop_chart_draws_the_measured_samples_over_the_model()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var analysis = TestDesigns.DemoAnalysis;
         var set = new MeasuredSet(MeasuredCsvReader.Read(MeasuredCsv).Response!, MeasuredQuantity.LoopGain, "core-rail-loop-gain.csv");
         var cut = Render<BodeChart>(p => p.Add(c => c.Analysis, analysis).Add(c => c.Form, DesignForm.FromDesign(analysis.Design)).Add(c => c.Measured, set));

@@ -27,7 +27,7 @@ public sealed class MonteCarloPanelTests : BunitContext
     [Fact]
     public async Task Cancelling_a_long_run_stops_it_within_100_ms_and_the_panel_runs_again()
     {
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         var workspace = await Workspace();
         var cut = Render<MonteCarloPanel>(p => p.Add(c => c.Workspace, workspace).Add(c => c.Threads, 1));
         cut.Find("[data-mc-samples]").Change("100000");
@@ -65,7 +65,7 @@ public sealed class MonteCarloPanelTests : BunitContext
     [Fact]
     public async Task The_histograms_are_the_cores_bins_and_the_same_seed_gives_the_same_run()
     {
-        var module = PlotlyModule.Setup(JSInterop);
+        var module = PlotlyModule.Setup(this);
         var workspace = await Workspace();
         var cut = Render<MonteCarloPanel>(p => p.Add(c => c.Workspace, workspace).Add(c => c.Threads, 1));
         cut.Find("[data-mc-samples]").Change("200");
@@ -100,7 +100,7 @@ public sealed class MonteCarloPanelTests : BunitContext
     [Fact]
     public async Task A_worst_sample_opens_as_the_design_only_on_click_and_the_previous_design_comes_back()
     {
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         var workspace = await Workspace();
         string name = workspace.Form.Name;
         double inductance = workspace.Form.Inductance.Value!.Value;

@@ -211,7 +211,7 @@ public sealed class PartsPanelTests : BunitContext
     [Fact]
     public async Task The_workspace_page_has_the_parts_card()
     {
-        PlotlyModule.Setup(JSInterop);
+        PlotlyModule.Setup(this);
         JSInterop.SetupVoid("Blazor._internal.InputFile.init", _ => true);
         Services.AddSingleton<DemoDesign>();
         TestLibrary.AddTo(Services);

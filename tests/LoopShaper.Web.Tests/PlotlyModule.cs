@@ -1,3 +1,5 @@
+using Microsoft.Extensions.DependencyInjection;
+
 namespace LoopShaper.Web.Tests;
 
 /// <summary>The Plotly.Blazor 7.2.0 JavaScript module, set up in bUnit's strict JS interop so that every call is recorded and checked.</summary>
@@ -9,8 +11,26 @@ public static class PlotlyModule
     /// <summary>The plotly.js bundle it loads.</summary>
     public const string ScriptPath = "./_content/Plotly.Blazor/plotly-basic-3.7.0.min.js";
 
+    /// <summary>
+    /// Sets up the module and the calls the workspace's charts make (anything else fails the test), with the test's JS
+    /// runtime taking one call at a time (<see cref="SerializedJsRuntime"/>).
+    /// </summary>
+    public static BunitJSModuleInterop Setup(BunitContext context)
+    {
+        Serialize(context);
+        return Setup(context.JSInterop);
+    }
+
+    /// <summary>Components of <paramref name="context"/> get a JS runtime that takes one call at a time.</summary>
+    public static SerializedJsRuntime Serialize(BunitContext context)
+    {
+        var runtime = new SerializedJsRuntime(context.JSInterop.JSRuntime);
+        context.Services.AddSingleton<Microsoft.JSInterop.IJSRuntime>(runtime);
+        return runtime;
+    }
+
     /// <summary>Sets up the module and the calls the workspace's charts make; anything else fails the test.</summary>
-    public static BunitJSModuleInterop Setup(BunitJSInterop js)
+    private static BunitJSModuleInterop Setup(BunitJSInterop js)
     {
         var module = js.SetupModule(ModulePath);
         module.SetupVoid("importScript", "plotly-import", ScriptPath).SetVoidResult();
@@ -27,21 +47,23 @@ public static class PlotlyModule
     }
 
     /// <summary>
-    /// The calls recorded so far, copied: bUnit's record is not safe to read while the renderer's thread adds to it
-    /// (a chart's Plotly.react comes after its render), so a copy that raced with a new call is taken again.
+    /// The calls recorded so far, copied under <see cref="SerializedJsRuntime.Gate"/>: bUnit's record is not safe to
+    /// read while a call is added to it (a chart's Plotly.react comes from the thread pool).
     /// </summary>
     public static List<JSRuntimeInvocation> Calls(BunitJSModuleInterop module)
     {
-        while (true)
+        lock (SerializedJsRuntime.Gate)
         {
-            try
-            {
-                return [.. module.Invocations];
-            }
-            catch (InvalidOperationException)
-            {
-                Thread.Yield();
-            }
+            return [.. module.Invocations];
+        }
+    }
+
+    /// <summary>Every JS call recorded so far, copied under the same gate.</summary>
+    public static List<JSRuntimeInvocation> Calls(BunitJSInterop js)
+    {
+        lock (SerializedJsRuntime.Gate)
+        {
+            return [.. js.Invocations];
         }
     }
 }

@@ -24,6 +24,7 @@ public sealed class TolerancesEditorTests : BunitContext
     [Fact]
     public async Task A_field_edit_changes_the_tolerances_of_the_design_the_file_the_link_and_the_corner_sweep()
     {
+        PlotlyModule.Setup(this); // before the first render: it registers the test's JS runtime
         var workspace = await Workspace();
         Assert.Null(workspace.Form.Build().Tolerances); // the demo has no section and gains none untouched
         var cut = Render<TolerancesEditor>(p => p.Add(c => c.Workspace, workspace));
@@ -46,7 +47,6 @@ public sealed class TolerancesEditorTests : BunitContext
         Assert.Equal(5.0, back.Tolerances!.InductancePct);
 
         // The corner sweep of the new analysis varies L by +-5 % and the ESR up to x3.
-        PlotlyModule.Setup(JSInterop);
         using var watch = new CornerWatch(Services.GetRequiredService<Microsoft.Extensions.Logging.ILoggerFactory>().CreateLogger("corners")) { SettleMs = 0, Threads = 1 };
         var corners = Render<CornersPanel>(p => p.Add(c => c.Watch, watch));
         await watch.Follow(workspace.Analysis);

@@ -19,6 +19,7 @@ public sealed class ChartRedrawGroup : IAsyncDisposable
     public const string ModulePath = "./js/chart-redraw.js";
 
     private readonly IJSRuntime _js;
+    private readonly ILogger _logger;
     private readonly object _gate = new();
     private readonly List<LiveChart> _members = [];
     private readonly Dictionary<LiveChart, Pending> _pending = [];
@@ -27,8 +28,12 @@ public sealed class ChartRedrawGroup : IAsyncDisposable
     private bool _sending;
     private bool _disposed;
 
-    /// <summary>A group that sends through <paramref name="js"/>.</summary>
-    public ChartRedrawGroup(IJSRuntime js) => _js = js;
+    /// <summary>A group that sends through <paramref name="js"/> and logs a failed send to <paramref name="logger"/>.</summary>
+    public ChartRedrawGroup(IJSRuntime js, ILogger logger)
+    {
+        _js = js;
+        _logger = logger;
+    }
 
     /// <summary>Charts taking part (drawn and not disposed).</summary>
     internal int MemberCount
@@ -204,6 +209,11 @@ public sealed class ChartRedrawGroup : IAsyncDisposable
                 {
                     _module = null;
                 }
+            }
+            catch (Exception ex)
+            {
+                // Logged, and the group goes on with the next redraws: a faulted send must not leave it marked as sending.
+                _logger.LogError(ex, "Redraw of charts {Ids} failed", string.Join(", ", batch.Select(b => b.Key.Id)));
             }
         }
     }

@@ -74,6 +74,9 @@ public sealed partial class LiveChart : IAsyncDisposable
     [Inject]
     private IJSRuntime Js { get; set; } = default!;
 
+    [Inject]
+    private ILogger<LiveChart> Logger { get; set; } = default!;
+
     /// <summary>Called by the visibility module when the chart comes into or goes out of view.</summary>
     [JSInvokable]
     public Task OnVisibility(bool visible)
@@ -245,6 +248,12 @@ public sealed partial class LiveChart : IAsyncDisposable
             catch (Exception ex) when (ex is JSDisconnectedException or JSException or TaskCanceledException or ObjectDisposedException)
             {
                 // The circuit or the chart went away; nothing to draw into.
+            }
+            catch (Exception ex)
+            {
+                // Anything else is logged and the chart goes on with the next figure (a faulted send must not leave it
+                // marked as sending, which would stop its redraws for good).
+                Logger.LogError(ex, "Redraw of chart {Id} failed", Id);
             }
         }
     }

@@ -103,7 +103,7 @@ public sealed partial class Designer : IAsyncDisposable, IHandleEvent
     /// <inheritdoc />
     protected override async Task OnInitializedAsync()
     {
-        _redraws = new ChartRedrawGroup(Js);
+        _redraws = new ChartRedrawGroup(Js, Logger);
         var design = Demo.Design;
         if (DesignToken is not null)
         {
