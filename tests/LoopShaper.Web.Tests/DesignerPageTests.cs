@@ -106,7 +106,9 @@ public sealed class DesignerPageTests : BunitContext
         UsePlacement(cut);
         double z2 = page.Workspace.Form.Zero2.Value!.Value;
         cut.Find("[data-handle='Zero2']").Click();
+        // Selected in the model at once, and in the chart (which takes the keys) when the page has rendered again.
         cut.WaitForAssertion(() => Assert.Equal(PlacementTarget.Zero2, page.Workspace.Selected));
+        cut.WaitForAssertion(() => Assert.Equal("true", cut.Find("[data-handle='Zero2']").GetAttribute("aria-pressed")));
 
         cut.Find(".bode").KeyDown(new Microsoft.AspNetCore.Components.Web.KeyboardEventArgs { Key = "ArrowRight" });
         cut.WaitForAssertion(() => Assert.Equal(z2 * Math.Pow(10, 0.02), page.Workspace.Form.Zero2.Value!.Value, tolerance: 1e-3 * z2)); // 4 significant digits kept
