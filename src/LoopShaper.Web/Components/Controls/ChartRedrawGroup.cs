@@ -57,7 +57,7 @@ public sealed class ChartRedrawGroup : IAsyncDisposable
     /// <param name="Config">The chart's configuration, JSON written.</param>
     public sealed record Redraw(string Id, object[] Data, object Layout, object Config);
 
-    private sealed record Pending(ChartFigure Figure, object? Round, Task<(List<ITrace> Data, Plotly.Blazor.Layout Layout)> Prepared);
+    private sealed record Pending(object? Round, Task<(List<ITrace> Data, Plotly.Blazor.Layout Layout)> Prepared);
 
     /// <summary>Sends every waiting redraw now.</summary>
     public void Flush()
@@ -131,7 +131,7 @@ public sealed class ChartRedrawGroup : IAsyncDisposable
                 return;
             }
 
-            _pending[chart] = new Pending(figure, round, prepared);
+            _pending[chart] = new Pending(round, prepared);
             _ready |= round is null || IsComplete();
         }
 
