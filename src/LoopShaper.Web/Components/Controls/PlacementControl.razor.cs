@@ -5,18 +5,9 @@ namespace LoopShaper.Web.Components.Controls;
 /// <summary>One compensator pole, zero or gain setting: a slider (logarithmic for frequencies) and the typed value.</summary>
 public partial class PlacementControl : IHandleEvent
 {
-    /// <summary>
-    /// An edit renders this control with the page (the handler of <see cref="OnChanged"/> renders the page, and the
-    /// page this control), not first on its own: that render batch would reach the browser ahead of the new charts.
-    /// </summary>
-    async Task IHandleEvent.HandleEventAsync(EventCallbackWorkItem callback, object? arg)
-    {
-        await callback.InvokeAsync(arg);
-        if (!OnChanged.HasDelegate)
-        {
-            StateHasChanged();
-        }
-    }
+    /// <summary>Edits render with the page (<see cref="RelayedEdit"/>).</summary>
+    Task IHandleEvent.HandleEventAsync(EventCallbackWorkItem callback, object? arg)
+        => RelayedEdit.Handle(callback, arg, OnChanged.HasDelegate, StateHasChanged);
 
     /// <summary>The form.</summary>
     [Parameter, EditorRequired]

@@ -59,19 +59,9 @@ public partial class SiField : IHandleEvent
     /// <summary>The element id for a JSON path: "plant.powerStage.inductor.inductanceH" gives "f-plant-powerStage-inductor-inductanceH".</summary>
     public static string IdOf(string path) => "f-" + new string([.. path.Select(c => char.IsLetterOrDigit(c) ? c : '-')]).TrimEnd('-');
 
-    /// <summary>
-    /// A keystroke renders the field with the page, not on its own first: the parent's handler of <see cref="OnChanged"/>
-    /// renders the parent and with it this field (its message too). ComponentBase would also render the field at once,
-    /// a render batch of its own that the browser applies (and may paint) while the recomputed charts are on their way.
-    /// </summary>
-    async Task IHandleEvent.HandleEventAsync(EventCallbackWorkItem callback, object? arg)
-    {
-        await callback.InvokeAsync(arg);
-        if (!OnChanged.HasDelegate)
-        {
-            StateHasChanged();
-        }
-    }
+    /// <summary>Edits render with the page (<see cref="RelayedEdit"/>).</summary>
+    Task IHandleEvent.HandleEventAsync(EventCallbackWorkItem callback, object? arg)
+        => RelayedEdit.Handle(callback, arg, OnChanged.HasDelegate, StateHasChanged);
 
     private async Task OnInput(ChangeEventArgs e)
     {
