@@ -15,6 +15,13 @@ public sealed class ChartMarks
     /// <summary>A white halo behind the labels, so that they read over curves and grid lines without a box.</summary>
     public const string Halo = "0 0 3px #ffffff, 0 0 3px #ffffff, 0 0 2px #ffffff";
 
+    /// <summary>
+    /// The text of a drawn entry without a label: a zero-width space, not an empty string. plotly.js removes the text
+    /// node of a point whose text is empty and does not make it again on a redraw (Plotly.react) that gives the point a
+    /// label: after a change that moved the labels to other entries, the gain-margin and -180 degree labels were gone.
+    /// </summary>
+    public const string NoLabel = "\u200B";
+
     private readonly List<object?> _x = [];
     private readonly List<object?> _y = [];
     private readonly List<MarkerSymbol> _symbol = [];
@@ -52,8 +59,8 @@ public sealed class ChartMarks
         }
 
         Gap();
-        Add(x0, y0, MarkerSymbol.Circle, 0, ChartPalette.Reference, string.Empty, hover, TextPositionEnum.TopRight);
-        Add(x1, y1, MarkerSymbol.Circle, 0, ChartPalette.Reference, label ?? string.Empty, hover, labelPosition);
+        Add(x0, y0, MarkerSymbol.Circle, 0, ChartPalette.Reference, NoLabel, hover, TextPositionEnum.TopRight);
+        Add(x1, y1, MarkerSymbol.Circle, 0, ChartPalette.Reference, Labelled(label), hover, labelPosition);
         return true;
     }
 
@@ -66,7 +73,7 @@ public sealed class ChartMarks
         }
 
         Gap();
-        Add(x, y, symbol, size, color, label ?? string.Empty, hover, labelPosition);
+        Add(x, y, symbol, size, color, Labelled(label), hover, labelPosition);
         return _x.Count - 1;
     }
 
@@ -75,7 +82,7 @@ public sealed class ChartMarks
     {
         Name = _name,
         ShowLegend = false,
-        Mode = ModeFlag.Lines | ModeFlag.Markers | (_text.Any(t => t.Length > 0) ? ModeFlag.Text : 0),
+        Mode = ModeFlag.Lines | ModeFlag.Markers | (_text.Any(t => t.Length > 0 && t != NoLabel) ? ModeFlag.Text : 0),
         X = [.. _x],
         Y = [.. _y],
         XAxis = _xAxis,
@@ -102,6 +109,9 @@ public sealed class ChartMarks
     /// <summary>The entries' x values (gaps as null), for tests and hit maps.</summary>
     public IReadOnlyList<object?> X => _x;
 
+    private static string Labelled(string? label) => string.IsNullOrEmpty(label) ? NoLabel : label;
+
+    // A gap is not drawn at all (plotly.js drops the point's whole group), so its empty text does no harm.
     private void Gap()
     {
         if (_x.Count > 0)
