@@ -54,6 +54,12 @@ if (Environment.GetEnvironmentVariable("BENCH_WS") == "1")
 })()");
 }
 
+if (Environment.GetEnvironmentVariable("BENCH_PLOTLY") is { Length: > 0 } plotlyFile)
+{
+    // Serve another plotly.js bundle in place of the app's (e.g. the unminified one, for a profile with readable names).
+    await page.RouteAsync("**/plotly-basic-*.min.js", route => route.FulfillAsync(new RouteFulfillOptions { Path = plotlyFile, ContentType = "text/javascript" }));
+}
+
 await page.GotoAsync(app.BaseUri.ToString());
 await page.WaitForSelectorAsync("[data-circuit=ready]");
 await page.WaitForSelectorAsync("#bode-chart .main-svg");
