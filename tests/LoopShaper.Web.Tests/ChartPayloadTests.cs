@@ -61,9 +61,9 @@ public sealed class ChartPayloadTests : BunitContext
         Assert.Contains("magnitude (dB)", text, StringComparison.Ordinal);
         Assert.Contains("phase (deg)", text, StringComparison.Ordinal);
 
-        // The phase margin label (text of the phase panel's marks trace) carries the core's figure; no shapes or annotations are sent.
+        // The phase margin label (text of the phase panel's labels trace) carries the core's figure; no shapes or annotations are sent.
         string pm = analysis.Margins!.PhaseMarginDeg!.Value.ToString("F1", System.Globalization.CultureInfo.InvariantCulture);
-        var phaseMarks = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.PhaseMarksName);
+        var phaseMarks = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == ChartMarks.LabelsName(BodeFigure.PhaseMarksName));
         Assert.Contains(phaseMarks.GetProperty("text").EnumerateArray(), t => t.GetString()!.Contains("PM " + pm, StringComparison.Ordinal));
         Assert.False(layout.RootElement.TryGetProperty("shapes", out var shapes) && shapes.ValueKind == JsonValueKind.Array && shapes.GetArrayLength() > 0);
         Assert.False(layout.RootElement.TryGetProperty("annotations", out var notes) && notes.ValueKind == JsonValueKind.Array && notes.GetArrayLength() > 0);
@@ -78,7 +78,7 @@ public sealed class ChartPayloadTests : BunitContext
         cut.WaitForAssertion(() => Assert.Single(module.Invocations["newPlot"]));
 
         using var data = Json(module.Invocations["newPlot"].Single().Arguments[1]);
-        // They are points of the magnitude panel's marks trace, told apart by their hover text.
+        // They are points of the magnitude panel's markers trace, told apart by their hover text.
         var marks = data.RootElement.EnumerateArray().Single(t => t.GetProperty("name").GetString() == BodeFigure.MagnitudeMarksName);
         var x = marks.GetProperty("x").EnumerateArray().ToList();
         var hover = marks.GetProperty("hovertext").EnumerateArray().Select(v => v.GetString()).ToList();

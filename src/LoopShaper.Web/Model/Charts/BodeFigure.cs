@@ -107,8 +107,8 @@ public static class BodeFigure
         var magRange = BodeAxes.MagnitudeRange(visible.SelectMany(r => r.MagnitudeDb));
         var phaseRange = BodeAxes.PhaseRange(visible.SelectMany(r => r.PhaseDeg));
 
-        // Every small mark of a panel is one trace (ChartMarks): plotly.js redraws a dozen one-point traces, layout
-        // shapes and annotations far slower than the same marks as points and text of one trace.
+        // The small marks of a panel are three traces (ChartMarks: lines, markers, labels): plotly.js redraws a dozen
+        // one-point traces, layout shapes and annotations far slower than the same marks as points of a few traces.
         var magMarks = new ChartMarks(MagnitudeMarksName, "x", "y", ReferenceLine);
         var phaseMarks = new ChartMarks(PhaseMarksName, "x", "y2", ReferenceLine);
 
@@ -158,10 +158,10 @@ public static class BodeFigure
 
         // Poles and zeros: compensator ones are clickable, plant ones are reference marks.
         AddPlantSingularities(magMarks, analysis);
-        int magIndex = data.Count;
+        int magIndex = data.Count + ChartMarks.MarkersTrace;
         AddCompensatorSingularities(magMarks, magIndex, hits, analysis, selected);
-        data.Add(magMarks.ToTrace(MarksHover));
-        data.Add(phaseMarks.ToTrace(MarksHover));
+        data.AddRange(magMarks.ToTraces(MarksHover));
+        data.AddRange(phaseMarks.ToTraces(MarksHover));
 
         return new ChartFigure(data, BaseLayout(magRange, phaseRange, analysis), [.. hits]);
     }
@@ -280,7 +280,7 @@ public static class BodeFigure
             poles.Add((PlacementTarget.Pole2, p2));
         }
 
-        // Each clickable marker is one point of the marks trace; the hit map names the quantity behind its index.
+        // Each clickable marker is one point of the markers trace; the hit map names the quantity behind its index.
         var drawn = new List<(PlacementTarget Target, double Hz, double Db, string Hover)>();
         foreach (var (items, symbol, what) in new[] { (zeros, MarkerSymbol.CircleOpen, "compensator zero"), (poles, MarkerSymbol.X, "compensator pole") })
         {

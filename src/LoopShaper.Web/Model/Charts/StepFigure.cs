@@ -89,8 +89,8 @@ public static class StepFigure
         });
         notes.Add(new Annotation { XRef = x + " domain", YRef = y + " domain", X = 0.5m, Y = 1.0m, YAnchor = Plotly.Blazor.LayoutLib.AnnotationLib.YAnchorEnum.Bottom, ShowArrow = false, Text = "<b>" + name + "</b>", Font = new AnnotationFont { Size = 15, Color = ChartPalette.Ink } });
 
-        // The marks of a panel are one trace (ChartMarks): the final value and the settling time as dashed lines, the
-        // peak as a dot, their figures as the trace's text (plotly.js redraws that far faster than extra traces and annotations).
+        // The marks of a panel (ChartMarks): the final value and the settling time as dashed lines, the peak as a dot,
+        // their figures as labels (plotly.js redraws three traces far faster than extra traces and annotations).
         var marks = new ChartMarks(isLoad ? LoadMarksName : ReferenceMarksName, x, y, new Line { Color = ChartPalette.Reference, Width = 1.4m, Dash = "dash" });
         var m = r.Metrics;
         if (m.FinalValue is double final && double.IsFinite(final) && r.TimeS.Length > 1)
@@ -116,9 +116,9 @@ public static class StepFigure
             marks.Point(m.PeakTimeS, m.PeakDeviation, Plotly.Blazor.Traces.ScatterLib.MarkerLib.SymbolEnum.Circle, 10, ChartPalette.Margin, "peak", text, Callout.Position(right: true, above: m.PeakDeviation >= 0));
         }
 
-        if (marks.Count > 0)
+        if (!marks.IsEmpty)
         {
-            data.Add(marks.ToTrace(hoverTemplate: null));
+            data.AddRange(marks.ToTraces(hoverTemplate: null));
         }
     }
 
