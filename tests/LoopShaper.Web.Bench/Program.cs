@@ -64,6 +64,11 @@ await page.GotoAsync(app.BaseUri.ToString());
 await page.WaitForSelectorAsync("[data-circuit=ready]");
 await page.WaitForSelectorAsync("#bode-chart .main-svg");
 await page.WaitForSelectorAsync("#step-chart .main-svg");
+if (Environment.GetEnvironmentVariable("BENCH_CSS") is { Length: > 0 } css)
+{
+    // Extra style rules for the run (to try a layout or containment change before making it).
+    await page.AddStyleTagAsync(new PageAddStyleTagOptions { Content = css });
+}
 
 if (shot is not null)
 {
@@ -260,6 +265,7 @@ async Task<double> Change(int i)
     return await page.EvaluateAsync<double>(@"([id, value]) => new Promise((resolve, reject) => {
       const nb = window.__draws.bode.length, ns = window.__draws.step.length;
       const input = document.getElementById(id);
+      console.timeStamp('bench change'); // marks the change in a BENCH_TRACE timeline
       const t0 = performance.now();
       (window.__inputs = window.__inputs || []).push(t0);
       input.value = value;
