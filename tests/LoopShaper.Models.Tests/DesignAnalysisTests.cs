@@ -35,6 +35,32 @@ public class DesignAnalysisTests
     }
 
     [Fact]
+    public void The_interactive_analysis_leaves_out_the_corners_only_where_no_warning_uses_them()
+    {
+        // Voltage mode: the corners feed only reports, so the workspace's per-keystroke analysis skips them; every
+        // other result is the full analysis's, number for number (both are this project's own code: a consistency check).
+        var vm = TestStages.Design(TestStages.PointOfLoad(), new VoltageModeControl(1.0), TestStages.TypeII(40e3, 3e3, 250e3));
+        var full = DesignAnalyzer.Analyze(vm);
+        var quick = DesignAnalyzer.AnalyzeInteractive(vm);
+        Assert.True(full.IsValid, string.Join("; ", full.Issues));
+        Assert.Equal(6, full.Corners.Length);
+        Assert.Empty(quick.Corners);
+        Assert.Equal(full.Margins!.CrossoverHz, quick.Margins!.CrossoverHz);
+        Assert.Equal(full.Margins.PhaseMarginDeg, quick.Margins.PhaseMarginDeg);
+        Assert.True(full.LoopResponse!.MagnitudeDb.SequenceEqual(quick.LoopResponse!.MagnitudeDb));
+        Assert.True(full.LoopResponse.PhaseDeg.SequenceEqual(quick.LoopResponse.PhaseDeg));
+        Assert.True(full.LoadStep!.Value.SequenceEqual(quick.LoadStep!.Value));
+        Assert.Equal(full.Warnings.ToArray(), quick.Warnings.ToArray());
+        Assert.Equal(full.Criteria.ToArray(), quick.Criteria.ToArray());
+
+        // Peak current mode: the subharmonic and Qp warnings look at the worst corner, so the corners stay.
+        var pcm = TestStages.Design(TestStages.PointOfLoad(), TestStages.HalfOffSlope(0.1), TestStages.TypeII(40e3, 3e3, 250e3));
+        var pcmCorners = DesignAnalyzer.AnalyzeInteractive(pcm).Corners;
+        Assert.Equal(6, pcmCorners.Length);
+        Assert.Equal(DesignAnalyzer.Analyze(pcm).Corners.ToArray(), pcmCorners.ToArray());
+    }
+
+    [Fact]
     public void Subharmonic_oscillation_and_high_Qp_are_warned_with_the_ramp_for_unit_Qp()
     {
         // 5 V to 3.3 V (D about 0.67) without a ramp: mc D' - 0.5 < 0.

@@ -47,7 +47,10 @@ public sealed record DesignAnalysis
     /// <summary>Margins with an ideal amplifier (null when the amplifier is ideal).</summary>
     public StabilityMargins? IdealAmplifierMargins { get; init; }
 
-    /// <summary>The loop at every corner of the input and load ranges (power-stage plants only), with the model each used.</summary>
+    /// <summary>
+    /// The loop at every corner of the input and load ranges (power-stage plants only), with the model each used; empty
+    /// from <see cref="DesignAnalyzer.AnalyzeInteractive"/> for voltage mode.
+    /// </summary>
     public ImmutableArray<CornerResult> Corners { get; init; } = [];
 
     /// <summary>The compensator as a placement, gain resolved (from parts or a crossover target).</summary>

@@ -21,7 +21,18 @@ public static class DesignAnalyzer
     public const double HazardousEnergyJ = 20.0;
 
     /// <summary>Analyses a design. Never throws for bad input: errors come back in <see cref="DesignAnalysis.Issues"/>.</summary>
-    public static DesignAnalysis Analyze(LoopDesign design)
+    public static DesignAnalysis Analyze(LoopDesign design) => AnalyzeDesign(design, everyCorner: true);
+
+    /// <summary>
+    /// Analyses a design as <see cref="Analyze(LoopDesign)"/> does, except that the input and load corners
+    /// (<see cref="DesignAnalysis.Corners"/>) are computed only where the warnings need them (peak current mode, for
+    /// subharmonic oscillation at the worst corner); otherwise they are left empty. For the workspace, which analyses on
+    /// every keystroke and shows the corners from its own sweep; reports and the command line use
+    /// <see cref="Analyze(LoopDesign)"/>.
+    /// </summary>
+    public static DesignAnalysis AnalyzeInteractive(LoopDesign design) => AnalyzeDesign(design, everyCorner: false);
+
+    private static DesignAnalysis AnalyzeDesign(LoopDesign design, bool everyCorner)
     {
         var issues = DesignValidator.Validate(design).ToImmutableArray();
         if (issues.Any(i => i.Severity == Severity.Error))
@@ -31,7 +42,7 @@ public static class DesignAnalyzer
 
         try
         {
-            return AnalyzeValid(design, issues);
+            return AnalyzeValid(design, issues, everyCorner);
         }
         catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or ArithmeticException)
         {
@@ -148,7 +159,7 @@ public static class DesignAnalyzer
         return op;
     }
 
-    private static DesignAnalysis AnalyzeValid(LoopDesign design, ImmutableArray<ValidationIssue> issues)
+    private static DesignAnalysis AnalyzeValid(LoopDesign design, ImmutableArray<ValidationIssue> issues, bool everyCorner)
     {
         var built = BuildLoop(design);
         var (loop, op, plantSteps) = (built.Loop, built.OperatingPoint, built.Derivations);
@@ -163,7 +174,9 @@ public static class DesignAnalyzer
         double duration = a.StepDurationS ?? (20.0 / fc);
 
         // The input and load corners and the load step do not depend on the rest: they run beside it (both cores).
-        var cornersTask = design.Plant is BuckPlant cb ? Task.Run(() => Corners(design, cb)) : Task.FromResult(ImmutableArray<CornerResult>.Empty);
+        var cornersTask = design.Plant is BuckPlant cb && (everyCorner || cb.Control is PeakCurrentModeControl)
+            ? Task.Run(() => Corners(design, cb))
+            : Task.FromResult(ImmutableArray<CornerResult>.Empty);
         var loadStepTask = Task.Run(() =>
         {
             if (loop.ClosedOutputImpedance(pade) is not TransferFunction zcl)

@@ -18,7 +18,7 @@ public sealed class DesignWorkspace
     public DesignWorkspace(LoopDesign design, ILogger logger, Func<LoopDesign, DesignAnalysis>? analyze = null)
     {
         _logger = logger;
-        _analyze = analyze ?? DesignAnalyzer.Analyze;
+        _analyze = analyze ?? DesignAnalyzer.AnalyzeInteractive;
         Form = DesignForm.FromDesign(design);
     }
 
