@@ -48,8 +48,8 @@ public sealed class ChartMarks
         _line = line;
     }
 
-    /// <summary>Whether anything is drawn (a segment, a marker or a label).</summary>
-    public bool IsEmpty => _lineX.Count == 0 && _markerX.Count == 0 && _text.Count == 0;
+    /// <summary>Whether nothing is drawn (every label sits on a segment or a marker).</summary>
+    public bool IsEmpty => _lineX.Count == 0 && _markerX.Count == 0;
 
     /// <summary>Number of markers.</summary>
     public int MarkerCount => _markerX.Count;
@@ -105,61 +105,45 @@ public sealed class ChartMarks
     /// (<see cref="MarkersTrace"/>) and labels. Hover shows each line end's and marker's hover name and frequency-style x
     /// (<paramref name="hoverTemplate"/>), or nothing when null; the labels never take hover.
     /// </summary>
-    public IReadOnlyList<Scatter> ToTraces(string? hoverTemplate, int fontSize = ChartPalette.FontSize) =>
-    [
-        new Scatter
+    public IReadOnlyList<Scatter> ToTraces(string? hoverTemplate, int fontSize = ChartPalette.FontSize)
+    {
+        var lines = Trace(LinesName(_name), ModeFlag.Lines, _lineX, _lineY, hoverTemplate, _lineHover);
+        lines.ConnectGaps = false;
+        lines.Line = _line;
+
+        var markers = Trace(_name, ModeFlag.Markers, _markerX, _markerY, hoverTemplate, _markerHover);
+        markers.ClipOnAxis = false; // like the labels; plotly.js still hides points outside the axis ranges
+        markers.Marker = new Marker
         {
-            Name = LinesName(_name),
-            ShowLegend = false,
-            Mode = ModeFlag.Lines,
-            X = [.. _lineX],
-            Y = [.. _lineY],
-            XAxis = _xAxis,
-            YAxis = _yAxis,
-            ConnectGaps = false,
-            Line = _line,
-            HoverTextArray = hoverTemplate is null ? null : [.. _lineHover],
-            HoverTemplate = hoverTemplate,
-            HoverInfo = hoverTemplate is null ? HoverInfoFlag.Skip : null,
-        },
-        new Scatter
-        {
-            Name = _name,
-            ShowLegend = false,
-            Mode = ModeFlag.Markers,
-            X = [.. _markerX],
-            Y = [.. _markerY],
-            XAxis = _xAxis,
-            YAxis = _yAxis,
-            ClipOnAxis = false, // like the labels; plotly.js still hides points outside the axis ranges
-            Marker = new Marker
-            {
-                SymbolArray = [.. _symbol],
-                SizeArray = [.. _size],
-                ColorArray = [.. _color],
-                Opacity = 1m, // plotly.js makes markers with per-point sizes translucent (a bubble chart) unless told
-                Line = new Plotly.Blazor.Traces.ScatterLib.MarkerLib.Line { Width = 2.5m, ColorArray = [.. _color] },
-            },
-            HoverTextArray = hoverTemplate is null ? null : [.. _markerHover],
-            HoverTemplate = hoverTemplate,
-            HoverInfo = hoverTemplate is null ? HoverInfoFlag.Skip : null,
-        },
-        new Scatter
-        {
-            Name = LabelsName(_name),
-            ShowLegend = false,
-            Mode = ModeFlag.Text,
-            X = [.. _labelX],
-            Y = [.. _labelY],
-            XAxis = _xAxis,
-            YAxis = _yAxis,
-            ClipOnAxis = false, // labels may reach past the plot area like annotations
-            TextArray = [.. _text],
-            TextPositionArray = [.. _position],
-            TextFont = new TextFont { Color = ChartPalette.Ink, Size = fontSize, Shadow = Halo },
-            HoverInfo = HoverInfoFlag.Skip,
-        },
-    ];
+            SymbolArray = [.. _symbol],
+            SizeArray = [.. _size],
+            ColorArray = [.. _color],
+            Opacity = 1m, // plotly.js makes markers with per-point sizes translucent (a bubble chart) unless told
+            Line = new Plotly.Blazor.Traces.ScatterLib.MarkerLib.Line { Width = 2.5m, ColorArray = [.. _color] },
+        };
+
+        var labels = Trace(LabelsName(_name), ModeFlag.Text, _labelX, _labelY, hoverTemplate: null, hover: []);
+        labels.ClipOnAxis = false; // labels may reach past the plot area like annotations
+        labels.TextArray = [.. _text];
+        labels.TextPositionArray = [.. _position];
+        labels.TextFont = new TextFont { Color = ChartPalette.Ink, Size = fontSize, Shadow = Halo };
+        return [lines, markers, labels];
+    }
+
+    // What the three traces share: a name, no legend entry, the axes, and hover from the template or none at all.
+    private Scatter Trace(string name, ModeFlag mode, IEnumerable<object?> x, IEnumerable<object?> y, string? hoverTemplate, List<string> hover) => new()
+    {
+        Name = name,
+        ShowLegend = false,
+        Mode = mode,
+        X = [.. x],
+        Y = [.. y],
+        XAxis = _xAxis,
+        YAxis = _yAxis,
+        HoverTextArray = hoverTemplate is null ? null : [.. hover],
+        HoverTemplate = hoverTemplate,
+        HoverInfo = hoverTemplate is null ? HoverInfoFlag.Skip : null,
+    };
 
     // Only labelled points reach the labels trace: plotly.js removes the text node of a point whose text is empty and
     // does not make it again on a later redraw (Plotly.react) that gives the point a label.
