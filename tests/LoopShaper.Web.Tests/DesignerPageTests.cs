@@ -69,6 +69,12 @@ public sealed class DesignerPageTests : BunitContext
     public void The_derivation_view_shows_the_numbers_of_the_current_design()
     {
         var cut = RenderReady();
+
+        // Closed until asked for: nothing of the table renders with every keystroke.
+        Assert.Empty(cut.FindAll("[data-derivation]"));
+        Assert.Equal("false", cut.Find("[data-derivations-toggle]").GetAttribute("aria-expanded"));
+        cut.Find("[data-derivations-toggle]").Click();
+        Assert.Equal("true", cut.Find("[data-derivations-toggle]").GetAttribute("aria-expanded"));
         var row = cut.Find("[data-derivation='Ideal duty cycle']");
         Assert.Contains("D0 = 1.00 V / 12.0 V", row.TextContent, StringComparison.Ordinal);
         Assert.Contains("0.0833", row.TextContent, StringComparison.Ordinal); // 1.0 / 12, by hand
@@ -81,6 +87,16 @@ public sealed class DesignerPageTests : BunitContext
             Assert.Contains("0.0800", changed.TextContent, StringComparison.Ordinal); // 1.0 / 12.5, by hand
         });
         Assert.Contains(cut.FindAll("[data-derivation]"), r => r.TextContent.Contains("Erickson & Maksimovic", StringComparison.Ordinal));
+
+        // The filter typed into it stays through closing and opening the card again.
+        cut.Find("#derivations input.filter").Input("duty");
+        int filtered = cut.FindAll("[data-derivation]").Count;
+        Assert.InRange(filtered, 1, cut.Instance.Workspace.Analysis!.Derivations.Length - 1);
+        cut.Find("[data-derivations-toggle]").Click();
+        Assert.Empty(cut.FindAll("[data-derivation]"));
+        cut.Find("[data-derivations-toggle]").Click();
+        Assert.Equal("duty", cut.Find("#derivations input.filter").GetAttribute("value"));
+        Assert.Equal(filtered, cut.FindAll("[data-derivation]").Count);
     }
 
     [Fact]
@@ -157,7 +173,30 @@ public sealed class DesignerPageTests : BunitContext
         Assert.Equal(a.Margins!.PhaseMarginDeg!.Value.ToString("F1", CultureInfo.InvariantCulture) + " °", Pm(cut));
         Assert.Equal("stable", cut.Find("[data-kpi-value='stability']").TextContent);
         Assert.Equal(LoopShaper.Core.Design.DesignAnalysis.SafetyNotice, cut.Find("[data-safety-notice]").TextContent);
+
+        // The demo meets every criterion: the list waits behind its button, and the button shows all of them.
+        Assert.True(a.MeetsCriteria);
+        Assert.Empty(cut.FindAll("[data-criterion]"));
+        Assert.Equal("false", cut.Find("[data-criteria-toggle]").GetAttribute("aria-expanded"));
+        cut.Find("[data-criteria-toggle]").Click();
         Assert.Equal(a.Criteria.Length, cut.FindAll("[data-criterion]").Count);
+        Assert.Equal("true", cut.Find("[data-criteria-toggle]").GetAttribute("aria-expanded"));
+        cut.Find("[data-criteria-toggle]").Click();
+        Assert.Empty(cut.FindAll("[data-criterion]"));
+    }
+
+    [Fact]
+    public void A_failed_criterion_opens_the_criteria_list_with_it_marked()
+    {
+        var cut = RenderReady();
+        double pm = cut.Instance.Workspace.Analysis!.Margins!.PhaseMarginDeg!.Value;
+        string asked = Math.Ceiling(pm + 10).ToString(CultureInfo.InvariantCulture);
+        cut.Find("#f-criteria-minPhaseMarginDeg").Input(asked);
+        cut.WaitForAssertion(() => Assert.Equal("fail", cut.Find("[data-verdict]").GetAttribute("data-verdict")));
+        var failed = cut.Find("[data-criterion='criteria.minPhaseMarginDeg']");
+        Assert.Equal("fail", failed.ClassName);
+        Assert.Contains("(>= " + asked + " deg)", failed.TextContent, StringComparison.Ordinal);
+        Assert.Equal("true", cut.Find("[data-criteria-toggle]").GetAttribute("aria-expanded"));
     }
 
     [Fact]

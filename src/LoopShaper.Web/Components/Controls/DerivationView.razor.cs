@@ -12,6 +12,13 @@ public partial class DerivationView
     [Parameter]
     public IReadOnlyList<Derivation> Derivations { get; set; } = [];
 
+    /// <summary>
+    /// Whether the table is shown. Closed, nothing of it renders: the page re-renders on every keystroke and the table
+    /// of a few dozen formulas is the largest part of it. The filter text stays while it is closed.
+    /// </summary>
+    [Parameter]
+    public bool Open { get; set; } = true;
+
     private IEnumerable<Derivation> Shown => _filter.Length == 0
         ? Derivations
         : Derivations.Where(d => d.Quantity.Contains(_filter, StringComparison.OrdinalIgnoreCase)

@@ -34,6 +34,17 @@ public partial class SummaryPanel
     [Parameter]
     public int UnreadableFields { get; set; }
 
+    // The engineer's choice to show or hide the criteria list; null until one is made.
+    private bool? _criteriaChoice;
+
+    /// <summary>
+    /// The criteria list is shown while a criterion fails (or once asked for); a design that meets every one keeps the
+    /// summary short, so that on a laptop screen the loop-gain chart starts higher up (the tiles carry the same figures).
+    /// </summary>
+    private bool CriteriaShown => _criteriaChoice ?? (Analysis is { MeetsCriteria: false });
+
+    private void ToggleCriteria() => _criteriaChoice = !CriteriaShown;
+
     private List<string> Warnings
     {
         get

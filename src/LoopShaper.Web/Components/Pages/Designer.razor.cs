@@ -17,6 +17,10 @@ public sealed partial class Designer : IAsyncDisposable, IHandleEvent
     public const string TopBarSection = "topbar-actions";
 
     private bool _interactive;
+
+    // The derivations card, closed until asked for (see DerivationView.Open).
+    private bool _derivationsOpen;
+
     private int _renders;
     private string? _linkError;
     private MeasuredSet? _measured;
