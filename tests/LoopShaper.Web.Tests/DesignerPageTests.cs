@@ -74,7 +74,7 @@ public sealed class DesignerPageTests : BunitContext
         Assert.Empty(cut.FindAll("[data-derivation]"));
         Assert.Equal("false", cut.Find("[data-derivations-toggle]").GetAttribute("aria-expanded"));
         cut.Find("[data-derivations-toggle]").Click();
-        Assert.Equal("true", cut.Find("[data-derivations-toggle]").GetAttribute("aria-expanded"));
+        cut.WaitForAssertion(() => Assert.Equal("true", cut.Find("[data-derivations-toggle]").GetAttribute("aria-expanded")));
         var row = cut.Find("[data-derivation='Ideal duty cycle']");
         Assert.Contains("D0 = 1.00 V / 12.0 V", row.TextContent, StringComparison.Ordinal);
         Assert.Contains("0.0833", row.TextContent, StringComparison.Ordinal); // 1.0 / 12, by hand
@@ -89,14 +89,15 @@ public sealed class DesignerPageTests : BunitContext
         Assert.Contains(cut.FindAll("[data-derivation]"), r => r.TextContent.Contains("Erickson & Maksimovic", StringComparison.Ordinal));
 
         // The filter typed into it stays through closing and opening the card again.
+        int all = cut.Instance.Workspace.Analysis!.Derivations.Length;
         cut.Find("#derivations input.filter").Input("duty");
+        cut.WaitForAssertion(() => Assert.InRange(cut.FindAll("[data-derivation]").Count, 1, all - 1));
         int filtered = cut.FindAll("[data-derivation]").Count;
-        Assert.InRange(filtered, 1, cut.Instance.Workspace.Analysis!.Derivations.Length - 1);
         cut.Find("[data-derivations-toggle]").Click();
-        Assert.Empty(cut.FindAll("[data-derivation]"));
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-derivation]")));
         cut.Find("[data-derivations-toggle]").Click();
+        cut.WaitForAssertion(() => Assert.Equal(filtered, cut.FindAll("[data-derivation]").Count));
         Assert.Equal("duty", cut.Find("#derivations input.filter").GetAttribute("value"));
-        Assert.Equal(filtered, cut.FindAll("[data-derivation]").Count);
     }
 
     [Fact]
@@ -178,11 +179,12 @@ public sealed class DesignerPageTests : BunitContext
         Assert.True(a.MeetsCriteria);
         Assert.Empty(cut.FindAll("[data-criterion]"));
         Assert.Equal("false", cut.Find("[data-criteria-toggle]").GetAttribute("aria-expanded"));
+        // (a click waits in the queue while a background redraw holds the renderer: asserted once it has rendered)
         cut.Find("[data-criteria-toggle]").Click();
-        Assert.Equal(a.Criteria.Length, cut.FindAll("[data-criterion]").Count);
+        cut.WaitForAssertion(() => Assert.Equal(a.Criteria.Length, cut.FindAll("[data-criterion]").Count));
         Assert.Equal("true", cut.Find("[data-criteria-toggle]").GetAttribute("aria-expanded"));
         cut.Find("[data-criteria-toggle]").Click();
-        Assert.Empty(cut.FindAll("[data-criterion]"));
+        cut.WaitForAssertion(() => Assert.Empty(cut.FindAll("[data-criterion]")));
     }
 
     [Fact]
