@@ -136,6 +136,15 @@ public sealed class ChartPayloadTests : BunitContext
         using var layout = Json(call.Arguments[2]);
         var text = layout.RootElement.GetRawText();
         Assert.Contains("time (s)", text, StringComparison.Ordinal);
+        foreach (var axis in new[] { "yaxis", "yaxis2" })
+        {
+            // volts with SI prefixes down to 10^0: ticks read -25m, not -0.025
+            var y = layout.RootElement.GetProperty(axis);
+            Assert.Equal("SI", y.GetProperty("exponentformat").GetString());
+            Assert.Equal(0, y.GetProperty("minexponent").GetDouble());
+            Assert.EndsWith("(V)", y.GetProperty("title").GetProperty("text").GetString(), StringComparison.Ordinal);
+        }
+
         var labels = data.RootElement.EnumerateArray().Where(t => t.TryGetProperty("text", out var v) && v.ValueKind == JsonValueKind.Array)
             .SelectMany(t => t.GetProperty("text").EnumerateArray().Select(v => v.GetString())).ToList();
         Assert.Contains("overshoot " + analysis.ReferenceStep!.Metrics.OvershootPct!.Value.ToString("F1", System.Globalization.CultureInfo.InvariantCulture) + " %", labels);

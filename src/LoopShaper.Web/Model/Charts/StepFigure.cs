@@ -64,8 +64,8 @@ public static class StepFigure
             XAxis = [Axis("x", [0m, 0.46m]), Axis("x2", [0.56m, 1m])],
             YAxis =
             [
-                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "output deviation (V)" }, Anchor = "x", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, MinExponent = 0, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" },
-                new YAxis { TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow, Title = new YAxisTitle { Text = "output change (V)" }, Anchor = "x2", ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI, MinExponent = 0, GridColor = ChartPalette.Grid, ShowLine = true, LineColor = ChartPalette.Ink, Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True, ZeroLineColor = "#9aa4ae" },
+                VoltageAxis("output deviation (V)", anchor: "x"),
+                VoltageAxis("output change (V)", anchor: "x2"),
             ],
             Annotations = notes,
             UiRevision = "steps",
@@ -134,6 +134,21 @@ public static class StepFigure
         LineColor = ChartPalette.Ink,
         Mirror = Plotly.Blazor.LayoutLib.XAxisLib.MirrorEnum.True,
         ZeroLine = false,
+    };
+
+    // A step's voltage axis: SI prefixes down to 10^0 (-25m rather than -0.025), as the time axis shows its ticks.
+    private static YAxis VoltageAxis(string title, string anchor) => new()
+    {
+        TickLabelOverflow = Plotly.Blazor.LayoutLib.YAxisLib.TickLabelOverflowEnum.Allow,
+        Title = new YAxisTitle { Text = title },
+        Anchor = anchor,
+        ExponentFormat = Plotly.Blazor.LayoutLib.YAxisLib.ExponentFormatEnum.SI,
+        MinExponent = 0,
+        GridColor = ChartPalette.Grid,
+        ShowLine = true,
+        LineColor = ChartPalette.Ink,
+        Mirror = Plotly.Blazor.LayoutLib.YAxisLib.MirrorEnum.True,
+        ZeroLineColor = "#9aa4ae",
     };
 
     private static Annotation Centered(string xRef, string yRef, string text) => new()
